@@ -1,0 +1,9 @@
+using BenchmarkDotNet.Running;
+
+namespace SoftSensor.Benchmarks;
+
+internal static class Program
+{
+    private static void Main(string[] args) =>
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+}
