@@ -1,0 +1,41 @@
+namespace SoftSensor.Core.Signals;
+
+/// <summary>One named estimate of one cycle, in the unit its name and <see cref="Unit"/> state.</summary>
+/// <param name="Name">Stable id of the estimate, e.g. <c>our</c>, <c>mu_per_h</c> (see <see cref="EstimateNames"/>).</param>
+/// <param name="Value">The value (NaN when it could not be computed; its quality is then Bad).</param>
+/// <param name="Unit">Unit shown to users, e.g. <c>mmol/(L·h)</c>.</param>
+/// <param name="Sigma">Standard uncertainty in the same unit (NaN when unknown).</param>
+/// <param name="Quality">Quality of this value.</param>
+/// <param name="StatusCode">OPC UA status code of this value (OPC UA Part 8 §7.3.2; 0 = Good).</param>
+public readonly record struct EstimateValue(string Name, double Value, string Unit, double Sigma, SampleQuality Quality, uint StatusCode);
+
+/// <summary>
+/// Everything one cycle of one reactor produced, flattened for the sinks (store, time-series
+/// database, MQTT, OPC UA write-back, status page). <see cref="SourceTime"/> is the newest input
+/// timestamp the cycle used; <see cref="Quality"/> the worst over the frame's inputs.
+/// </summary>
+public sealed record EstimateFrame(
+    string Reactor,
+    string BatchId,
+    DateTimeOffset SourceTime,
+    SampleQuality Quality,
+    IReadOnlyList<EstimateValue> Values);
+
+/// <summary>Stable ids of the estimates (used as MQTT topic leaves, line-protocol fields, CSV columns).</summary>
+public static class EstimateNames
+{
+    public const string Our = "our";
+    public const string Cer = "cer";
+    public const string Rq = "rq";
+    public const string OutletFlow = "outlet_flow_nl_per_min";
+    public const string MuPerH = "mu_per_h";
+    public const string MuRawPerH = "mu_raw_per_h";
+    public const string BiomassGPerL = "biomass_g_per_l";
+    public const string BiomassG = "biomass_g";
+    public const string LiquidVolumeL = "volume_l";
+    public const string ConsistencyH = "h";
+    public const string ConsistencyCritical = "h_critical";
+    public const string FeedAdvisoryLPerH = "feed_advisory_l_per_h";
+    public const string FeedCapLPerH = "feed_cap_l_per_h";
+    public const string Kla = "kla_per_h";
+}
