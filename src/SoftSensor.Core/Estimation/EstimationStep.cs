@@ -13,18 +13,18 @@ public static class EstimationStep
     private const uint UncertainLastUsableValue = 0x40900000; // OPC UA Part 8 §7.3.2
     private const uint BadWaitingForInitialData = 0x80320000;
 
-    /// <summary>Runs the step for one cycle at <see cref="AlignedInputs.Time"/>.</summary>
-    public static void Run(AlignedInputs inputs, in BalanceRates rates, EstimatorState state, EstimatorSettings settings, CycleOutputs o)
+    /// <summary>Runs the step for one cycle at <see cref="AlignedInputs.Time"/> (volume found here).</summary>
+    public static void Run(AlignedInputs inputs, in BalanceRates rates, EstimatorState state, EstimatorSettings settings, CycleOutputs o) =>
+        Run(inputs, VolumeStep.Begin(inputs, state, settings), rates, state, settings, o);
+
+    /// <summary>Runs the step for one cycle whose volume step the caller already took.</summary>
+    public static void Run(AlignedInputs inputs, in VolumeStep volume, in BalanceRates rates, EstimatorState state, EstimatorSettings settings, CycleOutputs o)
     {
         long t = inputs.Time.UtcTicks;
-        if (!state.Initialised)
-        {
-            Initialise(inputs, t, state, settings);
-        }
-
-        double dtH = Math.Max(t - state.TimeTicks, 0) / (double)TimeSpan.TicksPerHour;
-        double removed = VolumeTracker.TakeRemoved(inputs, state);
-        double v = VolumeTracker.Current(inputs, state.VolumeL, removed, dtH, settings, out var volumeSource);
+        double dtH = volume.DtH;
+        double removed = volume.RemovedL;
+        double v = volume.VolumeL;
+        var volumeSource = volume.Source;
         double removedFraction = removed > 0 ? Math.Min(removed / (v + removed), 0.999) : 0.0;
 
         // Growth in g/(L·h): C-mmol/(L·h) × g/C-mol (ash included) / 1000.
@@ -106,7 +106,7 @@ public static class EstimationStep
     private static double Selected(in ObserverStates s, EstimatorSettings settings) =>
         settings.Observer == ObserverKind.PirtEkf ? s.EkfBiomassG : s.BiomassG;
 
-    private static void Initialise(AlignedInputs inputs, long t, EstimatorState state, EstimatorSettings settings)
+    internal static void Initialise(AlignedInputs inputs, long t, EstimatorState state, EstimatorSettings settings)
     {
         double v = VolumeTracker.Current(inputs, settings.InitialVolumeL, 0, 0, settings, out _);
         double xv = settings.InitialBiomassGPerL * v;

@@ -27,6 +27,9 @@ internal sealed record ReplayConfig
     /// <summary>Stoichiometric model file, relative to this configuration file.</summary>
     public string Model { get; init; } = string.Empty;
 
+    /// <summary>Which rates besides OUR and CER enter the elemental balance.</summary>
+    public BalanceConfig Balance { get; init; } = new();
+
     /// <summary>Estimator settings.</summary>
     public EstimatorSettings Estimator { get; init; } = new();
 
@@ -130,4 +133,29 @@ internal sealed record GasConfig
 
     /// <summary>Lowest aeration for a meaningful balance, NL/min.</summary>
     public double MinimumFlowNlPerMin { get; init; } = 0.5;
+
+    /// <summary><c>measured</c>: inlet O2/CO2 from the analyser's reference stream (the InletO2Percent/InletCo2Percent roles); <c>gasLines</c>: mixed from the lines.</summary>
+    public string Inlet { get; init; } = "gasLines";
+
+    /// <summary>Largest age of an input at the cycle time, s.</summary>
+    public double MaxInputAgeS { get; init; } = 120;
+}
+
+/// <summary>The measured set of the elemental balance besides OUR and CER.</summary>
+internal sealed record BalanceConfig
+{
+    /// <summary>Count the feed (F·c_S / V) as measured substrate uptake while the feed runs.</summary>
+    public bool SubstrateFromFeed { get; init; } = true;
+
+    /// <summary>Relative standard uncertainty of the feed-derived substrate rate.</summary>
+    public double SubstrateRelativeSigma { get; init; } = 0.03;
+
+    /// <summary>Ammonia in the base, mol/L; null when the base is not counted as ammonia uptake.</summary>
+    public double? BaseAmmoniaMolPerL { get; init; }
+
+    /// <summary>Relative standard uncertainty of the base-derived ammonia rate.</summary>
+    public double AmmoniaRelativeSigma { get; init; } = 0.05;
+
+    /// <summary>Significance level of the consistency test.</summary>
+    public double Alpha { get; init; } = 0.05;
 }
