@@ -10,6 +10,9 @@ namespace SoftSensor.Daemon.Replay;
 /// </summary>
 internal sealed class ReplaySeries
 {
+    /// <summary>Failed cycles closer than this (about two cycles of 10 s) join one interval, h.</summary>
+    private const double MergeGapH = 0.01;
+
     private readonly int _max;
     private int _stride = 1;
     private long _seen;
@@ -65,7 +68,7 @@ internal sealed class ReplaySeries
             string key = r.Suspect ?? "not isolated";
             Suspects[key] = Suspects.TryGetValue(key, out long n) ? n + 1 : 1;
             var last = InconsistentIntervals.Count > 0 ? InconsistentIntervals[^1] : (FromH: -1.0, ToH: -1.0, Suspect: string.Empty);
-            if (InconsistentIntervals.Count > 0 && t - last.ToH < 0.1)
+            if (InconsistentIntervals.Count > 0 && t - last.ToH < MergeGapH)
             {
                 InconsistentIntervals[^1] = (last.FromH, t, last.Suspect);
             }

@@ -60,6 +60,11 @@ internal static class ReportPlots
             Line(p, t, s.HCritical, "critical value");
             Spans(p, s);
             Finish(p, "Consistency test", "h (χ²)");
+            // Large h after a step of the process would flatten the rest: show up to the 99th percentile or 4 × critical.
+            var finite = s.H.Where(double.IsFinite).Order().ToList();
+            double crit = s.HCritical.Where(double.IsFinite).DefaultIfEmpty(6).Max();
+            double top = Math.Max(4 * crit, finite.Count > 0 ? finite[(int)(0.99 * (finite.Count - 1))] : 0);
+            p.Axes.SetLimitsY(0, top * 1.1);
             figures.Add(Save(p, dir, "consistency.png", "Test statistic h of the elemental balances against its χ² critical value; shaded where the test failed."));
         }
 
