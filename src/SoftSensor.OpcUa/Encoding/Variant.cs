@@ -49,7 +49,7 @@ public sealed class Variant
             throw new ArgumentException($"Array of {values.GetType().GetElementType()?.Name} does not hold {type}.", nameof(values));
         }
 
-        if (dimensions is not null && dimensions.Aggregate(1L, (p, d) => p * d) != values.Length)
+        if (dimensions is not null && VariantTypes.ElementCount(dimensions) != values.Length)
         {
             throw new ArgumentException($"Dimensions [{string.Join(",", dimensions)}] do not multiply to the length {values.Length}.", nameof(dimensions));
         }

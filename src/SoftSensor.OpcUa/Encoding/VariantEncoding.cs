@@ -107,16 +107,7 @@ public static class VariantEncoding
         if (hasDimensions)
         {
             dimensions = r.ReadArrayOrEmpty(static x => x.ReadInt32());
-            long product = 1;
-            foreach (int d in dimensions)
-            {
-                product = d < 0 ? -1 : Math.Min(product * d, int.MaxValue + 1L);
-                if (product < 0)
-                {
-                    break;
-                }
-            }
-
+            long product = VariantTypes.ElementCount(dimensions);
             if (dimensions.Length == 0 || product != length)
             {
                 throw new UaDecodeException($"Variant dimensions [{string.Join(",", dimensions)}] do not match the array length {length}.");

@@ -32,4 +32,21 @@ public static class VariantTypes
         BuiltInType.DiagnosticInfo => typeof(DiagnosticInfo),
         _ => typeof(object),
     };
+
+    /// <summary>The number of elements dimensions describe; -1 when one is negative, saturated above Int32.MaxValue.</summary>
+    public static long ElementCount(IReadOnlyList<int> dimensions)
+    {
+        long product = 1;
+        foreach (int d in dimensions)
+        {
+            if (d < 0)
+            {
+                return -1;
+            }
+
+            product = Math.Min(product * d, int.MaxValue + 1L);
+        }
+
+        return product;
+    }
 }
