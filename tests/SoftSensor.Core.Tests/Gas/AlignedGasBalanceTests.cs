@@ -21,7 +21,7 @@ public class AlignedGasBalanceTests
     }
 
     private static readonly AlignedGasBalanceSettings Measured =
-        AlignedGasBalanceSettings.Default with { Inlet = InletComposition.Measured(double.NaN, double.NaN) };
+        AlignedGasBalanceSettings.Default with { Inlet = InletSource.Measured };
 
     [Fact]
     public void Compute_aligned_hand_case_matches_direct_balance()
