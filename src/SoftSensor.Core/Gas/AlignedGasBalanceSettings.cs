@@ -1,0 +1,36 @@
+namespace SoftSensor.Core.Gas;
+
+/// <summary>The gas lines a vessel has; an installed line whose flow is missing makes the balance bad.</summary>
+[Flags]
+public enum InstalledGasLines
+{
+    None = 0,
+    Air = 1,
+    Oxygen = 2,
+    Nitrogen = 4,
+    CarbonDioxide = 8,
+}
+
+/// <summary>
+/// How <see cref="GasBalance.Compute(Signals.AlignedInputs, in AlignedGasBalanceSettings)"/> reads a
+/// cycle's inputs: which lines exist, where the inlet composition comes from, the analyser basis, and
+/// how old an input may be.
+/// </summary>
+/// <param name="Balance">The balance settings proper.</param>
+/// <param name="Lines">Installed gas lines (their flow roles are required).</param>
+/// <param name="Inlet">Gas-line mix (with the air CO2 fraction) or measured inlet (the Inlet*Percent roles).</param>
+/// <param name="AnalyserBasis">Dry, or saturated at AnalyserTemperatureC (measured humidity has no role yet).</param>
+/// <param name="AnalyserPressureKPa">Absolute pressure in the analyser cell; NaN means use the PressureKPa role.</param>
+/// <param name="MaxInputAge">Largest age of a required input at the cycle time.</param>
+public readonly record struct AlignedGasBalanceSettings(
+    GasBalanceSettings Balance,
+    InstalledGasLines Lines,
+    InletComposition Inlet,
+    AnalyserBasis AnalyserBasis,
+    double AnalyserPressureKPa,
+    TimeSpan MaxInputAge)
+{
+    /// <summary>An air line, inlet mixed from the lines, dry analyser, inputs at most 60 s old.</summary>
+    public static AlignedGasBalanceSettings Default { get; } = new(
+        GasBalanceSettings.Default, InstalledGasLines.Air, InletComposition.FromGasLines(), AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));
+}
