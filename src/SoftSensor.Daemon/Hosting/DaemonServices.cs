@@ -42,7 +42,7 @@ internal static class DaemonServices
         services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
         services.AddSingleton<IEstimateSink, MqttEstimateSink>();
 
-        // CYCLE-REGISTRATION
+        services.TryAddSingleton<IReactorCycleFactory, OffGasCycleFactory>();
 
         // Hosted services stop in reverse order: pipelines, then the dispatcher drains, then MQTT says offline.
         services.AddHostedService(sp => sp.GetRequiredService<MqttLink>());

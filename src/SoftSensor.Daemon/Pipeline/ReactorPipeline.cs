@@ -27,6 +27,7 @@ internal sealed class ReactorPipeline
     private readonly KeyValuePair<string, object?> _reactorTag;
     private long _cycles;
     private long _newestArrival;
+    private volatile bool _waitingForTick;
 
     public ReactorPipeline(ReactorOptions options, IReadOnlyList<TagBinding> bindings, IReactorCycle cycle, IReadOnlyList<ISampleSource> sources, PipelineServices services)
     {
@@ -41,6 +42,9 @@ internal sealed class ReactorPipeline
 
     /// <summary>The reactor id.</summary>
     public string Reactor => _options.Id;
+
+    /// <summary>True while the cycle loop waits for its next tick (lets tests on a fake clock advance it safely).</summary>
+    internal bool IsWaitingForTick => _waitingForTick;
 
     /// <summary>Runs until cancelled, then writes a last checkpoint.</summary>
     public async Task RunAsync(CancellationToken cancellationToken)
@@ -142,8 +146,16 @@ internal sealed class ReactorPipeline
     private async Task CycleLoopAsync(CancellationToken cancellationToken)
     {
         using var timer = new PeriodicTimer(_options.CyclePeriod, _services.Time);
-        while (await timer.WaitForNextTickAsync(cancellationToken))
+        while (true)
         {
+            _waitingForTick = true;
+            bool ticked = await timer.WaitForNextTickAsync(cancellationToken);
+            _waitingForTick = false;
+            if (!ticked)
+            {
+                return;
+            }
+
             await RunCycleAsync(cancellationToken);
         }
     }
