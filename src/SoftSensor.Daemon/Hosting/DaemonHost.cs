@@ -39,6 +39,8 @@ internal static class DaemonHost
         settings.ConfigureServices?.Invoke(builder.Services);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
         var app = builder.Build();
+        // The exporter listens from the start, so /metrics counts what happened before its first request.
+        app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();
         return app;
     }

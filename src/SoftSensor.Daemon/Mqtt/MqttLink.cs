@@ -38,6 +38,7 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
     private CancellationTokenSource? _stop;
     private Task? _loop;
     private int _connections;
+    private int _disposed;
     private volatile bool _online;
 
     public MqttLink(IOptions<SoftSensorOptions> options, MqttTopics topics, DaemonMetrics metrics, TimeProvider time, ILogger<MqttLink> logger)
@@ -144,6 +145,12 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
 
     public async ValueTask DisposeAsync()
     {
+        // DI disposes this twice (as itself and as the hosted service it also is).
+        if (Interlocked.Exchange(ref _disposed, 1) == 1)
+        {
+            return;
+        }
+
         _stop?.Cancel();
         if (_loop is not null)
         {

@@ -13,7 +13,7 @@ internal static class TestConfigs
         var c = new Dictionary<string, string?>(StringComparer.OrdinalIgnoreCase)
         {
             ["site"] = "pilot",
-            ["area"] = "hall-b",
+            ["area"] = clientId,
             ["mqtt:host"] = "127.0.0.1",
             ["mqtt:port"] = brokerPort.ToString(System.Globalization.CultureInfo.InvariantCulture),
             ["mqtt:clientId"] = clientId,
@@ -34,6 +34,9 @@ internal static class TestConfigs
         Tag(c, "li301", "LiquidVolumeL", $"plant/{clientId}/r1/li301", age);
         return c;
     }
+
+    /// <summary>The output topic subtree of a <see cref="HandCase"/> daemon (its area is the client id, so tests sharing a broker never see each other's retained estimates).</summary>
+    public static string Subtree(string clientId) => $"softsensor/pilot/{clientId}";
 
     private static void Tag(Dictionary<string, string?> c, string tag, string role, string topic, string maxAge)
     {
