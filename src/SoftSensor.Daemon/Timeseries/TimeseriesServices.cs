@@ -1,0 +1,48 @@
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Sinks;
+
+namespace SoftSensor.Daemon.Timeseries;
+
+/// <summary>Registers the time-series sink, its outbox and sender (one line in the host: <c>services.AddTimeseries(configuration)</c>).</summary>
+internal static class TimeseriesServices
+{
+    public static IServiceCollection AddTimeseries(this IServiceCollection services, IConfiguration configuration)
+    {
+        var section = configuration.GetSection(TimeseriesOptions.Section);
+        services.AddOptions<TimeseriesOptions>().Bind(section).ValidateOnStart();
+        services.TryAddEnumerable(ServiceDescriptor.Singleton<IValidateOptions<TimeseriesOptions>, TimeseriesOptionsValidator>());
+        services.TryAddSingleton(TimeProvider.System);
+        services.AddMetrics();
+        if (!(section.Get<TimeseriesOptions>() ?? new TimeseriesOptions()).Enabled)
+        {
+            return services;
+        }
+
+        services.AddSingleton(sp => sp.GetRequiredService<IOptions<TimeseriesOptions>>().Value);
+        services.AddSingleton(sp =>
+        {
+            var o = sp.GetRequiredService<TimeseriesOptions>();
+            return new OutboxStore(o.OutboxPath, o.MaxOutboxBytes);
+        });
+        services.AddSingleton<ITimeseriesWriter>(sp =>
+        {
+            var o = sp.GetRequiredService<TimeseriesOptions>();
+            var store = sp.GetRequiredService<OutboxStore>();
+            TimeseriesLog.Started(sp.GetRequiredService<ILoggerFactory>().CreateLogger(typeof(TimeseriesServices).FullName!),
+                o.OutboxPath, store.Stats.Depth, o.Url, o.Org, o.Bucket);
+            return new InfluxLineWriter(o, o.ResolveToken(Environment.GetEnvironmentVariable));
+        });
+        services.AddSingleton<TimeseriesMetrics>();
+        services.AddSingleton(sp => new OutboxSender(
+            sp.GetRequiredService<OutboxStore>(), sp.GetRequiredService<ITimeseriesWriter>(), sp.GetRequiredService<TimeseriesOptions>(),
+            sp.GetRequiredService<TimeseriesMetrics>(), sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<ILogger<OutboxSender>>()));
+        services.AddHostedService(sp => sp.GetRequiredService<OutboxSender>());
+        services.AddSingleton<TimeseriesSink>();
+        services.AddSingleton<IEstimateSink>(sp => sp.GetRequiredService<TimeseriesSink>());
+        return services;
+    }
+}
