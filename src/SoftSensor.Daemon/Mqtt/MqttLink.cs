@@ -34,6 +34,7 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
     private readonly MqttClientFactory _factory = new();
     private readonly IMqttClient _client;
     private readonly ConcurrentDictionary<string, MqttMessageHandler> _handlers = new(StringComparer.Ordinal);
+    private readonly ConcurrentDictionary<string, byte> _subscribed = new(StringComparer.Ordinal);
     private readonly string _broker;
     private CancellationTokenSource? _stop;
     private Task? _loop;
@@ -58,6 +59,9 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
 
     /// <summary>Number of successful connections so far (1 after the first).</summary>
     public int Connections => Volatile.Read(ref _connections);
+
+    /// <summary>True when the broker granted the subscription to <paramref name="topic"/> on the current connection.</summary>
+    public bool IsSubscribed(string topic) => _online && _subscribed.ContainsKey(topic);
 
     /// <summary>Raised with true when the link comes up and false when it goes down.</summary>
     public event Action<bool>? OnlineChanged;
@@ -258,6 +262,7 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
                 return "refused: " + result.ResultCode;
             }
 
+            _subscribed.Clear();
             var subscribed = _handlers.Keys.ToList();
             await SubscribeAsync(subscribed, stop);
             await PublishStatusAsync("online", stop);
@@ -302,6 +307,10 @@ internal sealed class MqttLink : IHostedService, IAsyncDisposable
                 if ((int)item.ResultCode > (int)MqttClientSubscribeResultCode.GrantedQoS2)
                 {
                     MqttLog.SubscribeRefused(_logger, item.TopicFilter.Topic, item.ResultCode.ToString());
+                }
+                else
+                {
+                    _subscribed[item.TopicFilter.Topic] = 0;
                 }
             }
         }

@@ -35,7 +35,22 @@ internal sealed class TestDaemon : IAsyncDisposable
             ConsoleLevel = Microsoft.Extensions.Logging.LogLevel.Warning,
         });
         await app.StartAsync();
-        return new TestDaemon(app, dir);
+        var daemon = new TestDaemon(app, dir);
+        await daemon.WaitSubscribedAsync(config);
+        return daemon;
+    }
+
+    /// <summary>Waits until the broker granted every configured tag topic (a publish before that would be lost).</summary>
+    public async Task WaitSubscribedAsync(Dictionary<string, string?> config)
+    {
+        var link = Get<SoftSensor.Daemon.Mqtt.MqttLink>();
+        var topics = config.Where(kv => kv.Key.EndsWith(":topic", StringComparison.OrdinalIgnoreCase)).Select(kv => kv.Value!).ToList();
+        var until = DateTime.UtcNow + TimeSpan.FromSeconds(10);
+        while (!topics.All(link.IsSubscribed))
+        {
+            Assert.True(DateTime.UtcNow < until, "the daemon did not subscribe its tag topics within 10 s");
+            await Task.Delay(20);
+        }
     }
 
     public async ValueTask DisposeAsync()

@@ -29,6 +29,7 @@ public sealed class BrokerRestartTests(MosquittoFixture broker) : IClassFixture<
         await WaitUntilAsync(() => !link.IsOnline, Wait, "the link noticing the outage");
         await broker.StartAsync();
         await WaitUntilAsync(() => link.IsOnline, Wait, "the link coming back");
+        await daemon.WaitSubscribedAsync(TestConfigs.HandCase(broker.Port, "it-restart"));
 
         await using var after = await TestMqttClient.ConnectAsync(broker.Port, "it-restart-2");
         await after.SubscribeAsync(TestConfigs.Subtree("it-restart") + "/#");
