@@ -98,6 +98,12 @@ public class OffgasVerbBadInputTests
     }
 
     [Fact]
+    public void Offgas_analyser_temp_with_humidity_is_bad_input()
+    {
+        AssertBadInput(With(With("--humidity", "4"), "--analyser-temp", "30"), "--analyser-temp", "only used with --analyser-basis saturated");
+    }
+
+    [Fact]
     public void Offgas_humidity_with_analyser_basis_is_bad_input()
     {
         AssertBadInput(With(With("--humidity", "4"), "--analyser-basis", "dry"), "--humidity", "not both");

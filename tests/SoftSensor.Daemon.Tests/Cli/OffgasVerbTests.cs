@@ -61,6 +61,20 @@ public class OffgasVerbTests
     }
 
     [Fact]
+    public void Offgas_measured_humidity_recovers_dry_answer()
+    {
+        // As above with the water content given directly: 4.1912 % H2O (p_sat(30 °C)/101.325 kPa, IAPWS-IF97).
+        var (code, output, _) = CliRunner.Run(
+            "offgas", "--air", "10", "--inlet-o2", "20.946", "--inlet-co2", "0.042", "--outlet-o2", "18.682725", "--outlet-co2", "1.437133",
+            "--humidity", "4.19116", "--volume", "10", "--json");
+
+        Assert.Equal(0, code);
+        var root = Json(output);
+        Assert.Equal(38.629, root.GetProperty("our").GetDouble(), 0.0005);
+        Assert.Equal("measured-humidity", root.GetProperty("outlet").GetProperty("basis").GetString());
+    }
+
+    [Fact]
     public void Offgas_human_output_is_a_table_with_units()
     {
         var (code, output, _) = CliRunner.Run(HandCase);

@@ -72,6 +72,18 @@ internal sealed class OffgasRequestReader(OffgasOptions options, ParseResult par
             return AnalyserReading.Dry(o2, co2);
         }
 
+        if (basis != "saturated")
+        {
+            foreach (var cellFlag in new[] { options.AnalyserTemp, options.AnalyserPressure })
+            {
+                if (Given(cellFlag))
+                {
+                    Fail($"{cellFlag.Name} {Text(cellFlag)}: only used with --analyser-basis saturated");
+                    return AnalyserReading.Dry(o2, co2);
+                }
+            }
+        }
+
         if (Given(options.Humidity))
         {
             if (Given(options.AnalyserBasis))
@@ -85,15 +97,6 @@ internal sealed class OffgasRequestReader(OffgasOptions options, ParseResult par
 
         if (basis != "saturated")
         {
-            foreach (var cellFlag in new[] { options.AnalyserTemp, options.AnalyserPressure })
-            {
-                if (Given(cellFlag))
-                {
-                    Fail($"{cellFlag.Name} {Text(cellFlag)}: only used with --analyser-basis saturated");
-                    return AnalyserReading.Dry(o2, co2);
-                }
-            }
-
             return AnalyserReading.Dry(o2, co2);
         }
 
