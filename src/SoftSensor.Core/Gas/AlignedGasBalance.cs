@@ -18,13 +18,11 @@ internal static class AlignedGasBalance
             flags |= GasBalanceFlags.InputMissing;
         }
 
-        var inlet = settings.Inlet;
-        if (inlet.Source == InletSource.Measured)
-        {
-            inlet = InletComposition.Measured(
+        var inlet = settings.Inlet == InletSource.Measured
+            ? InletComposition.Measured(
                 Required(inputs, settings, SignalRole.InletO2Percent, ref flags) / 100.0,
-                Required(inputs, settings, SignalRole.InletCo2Percent, ref flags) / 100.0);
-        }
+                Required(inputs, settings, SignalRole.InletCo2Percent, ref flags) / 100.0)
+            : InletComposition.FromGasLines(settings.AirCo2Fraction);
 
         double yo = Required(inputs, settings, SignalRole.OutletO2Percent, ref flags) / 100.0;
         double yc = Required(inputs, settings, SignalRole.OutletCo2Percent, ref flags) / 100.0;

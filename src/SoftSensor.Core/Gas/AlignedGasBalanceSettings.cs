@@ -18,19 +18,21 @@ public enum InstalledGasLines
 /// </summary>
 /// <param name="Balance">The balance settings proper.</param>
 /// <param name="Lines">Installed gas lines (their flow roles are required).</param>
-/// <param name="Inlet">Gas-line mix (with the air CO2 fraction) or measured inlet (the Inlet*Percent roles).</param>
+/// <param name="Inlet">Gas-line mix, or measured inlet (the InletO2Percent and InletCo2Percent roles, dry).</param>
+/// <param name="AirCo2Fraction">CO2 mole fraction of the air line when the inlet is the gas-line mix.</param>
 /// <param name="AnalyserBasis">Dry, or saturated at AnalyserTemperatureC (measured humidity has no role yet).</param>
 /// <param name="AnalyserPressureKPa">Absolute pressure in the analyser cell; NaN means use the PressureKPa role.</param>
 /// <param name="MaxInputAge">Largest age of a required input at the cycle time.</param>
 public readonly record struct AlignedGasBalanceSettings(
     GasBalanceSettings Balance,
     InstalledGasLines Lines,
-    InletComposition Inlet,
+    InletSource Inlet,
+    double AirCo2Fraction,
     AnalyserBasis AnalyserBasis,
     double AnalyserPressureKPa,
     TimeSpan MaxInputAge)
 {
     /// <summary>An air line, inlet mixed from the lines, dry analyser, inputs at most 60 s old.</summary>
     public static AlignedGasBalanceSettings Default { get; } = new(
-        GasBalanceSettings.Default, InstalledGasLines.Air, InletComposition.FromGasLines(), AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));
+        GasBalanceSettings.Default, InstalledGasLines.Air, InletSource.GasLines, DryAir.DefaultCo2Fraction, AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));
 }

@@ -71,14 +71,14 @@ public static class GasBalance
         }
 
         var state = new BalanceState(flows, inlet, yo, yc, water, settings.Reference.MolarVolumeLPerMol);
-        return Finish(state, liquidVolumeL, settings, flags);
+        return Finish(state, totalNlPerMin, liquidVolumeL, settings, flags);
     }
 
     /// <summary>Computes one balance from a cycle's aligned inputs (see <see cref="AlignedGasBalanceSettings"/>).</summary>
     public static GasBalanceResult Compute(AlignedInputs inputs, in AlignedGasBalanceSettings settings) =>
         AlignedGasBalance.Compute(inputs, settings);
 
-    private static GasBalanceResult Finish(in BalanceState s, double liquidVolumeL, in GasBalanceSettings settings, GasBalanceFlags flags)
+    private static GasBalanceResult Finish(in BalanceState s, double inletNlPerMin, double liquidVolumeL, in GasBalanceSettings settings, GasBalanceFlags flags)
     {
         double toMmolPerLh = 1000.0 / liquidVolumeL;
         double otr = s.OtrMolPerH * toMmolPerLh;
@@ -120,7 +120,7 @@ public static class GasBalance
         double vm = s.MolarVolumeLPerMol;
         return new GasBalanceResult(
             otr, ctr, rq, Math.Sqrt(cov.OurOur), Math.Sqrt(cov.CerCer), rqSigma, cov,
-            s.InletMolPerH * vm / 60.0, s.OutletMolPerH * vm / 60.0,
+            inletNlPerMin, s.OutletMolPerH * vm / 60.0,
             s.O2InMolPerH / s.InletMolPerH, s.Co2InMolPerH / s.InletMolPerH, s.OutletO2Fraction, s.OutletCo2Fraction, s.WaterFraction,
             flags, flags.ToQuality());
     }

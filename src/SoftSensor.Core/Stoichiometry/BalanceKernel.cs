@@ -117,167 +117,174 @@ internal sealed class BalanceKernel
     /// </summary>
     public BalanceStatus Solve(ReadOnlySpan<double> q, ReadOnlySpan<double> psi, Span<double> rates, Span<double> sigmas, Span<double> covariance, out double h)
     {
-        int m = MeasuredColumns.Length, rho = Redundancy;
-        h = 0;
-        for (int i = 0; i < m; i++)
+        unchecked
         {
-            double v = psi[(i * m) + i];
-            if (!double.IsFinite(q[i]) || !double.IsFinite(v) || v < 0)
+            int m = MeasuredColumns.Length, rho = Redundancy;
+            h = 0;
+            for (int i = 0; i < m; i++)
             {
-                h = double.NaN;
-                return BalanceStatus.InvalidMeasurement;
+                double v = psi[(i * m) + i];
+                if (!double.IsFinite(q[i]) || !double.IsFinite(v) || v < 0)
+                {
+                    h = double.NaN;
+                    return BalanceStatus.InvalidMeasurement;
+                }
             }
-        }
 
-        q.CopyTo(_qs);
-        bool wantCov = !sigmas.IsEmpty || !covariance.IsEmpty;
-        if (wantCov)
-        {
-            psi[..(m * m)].CopyTo(_psiS);
-        }
-
-        if (rho > 0)
-        {
-            if (!Reconcile(q, psi, wantCov, out h))
+            q.CopyTo(_qs);
+            bool wantCov = !sigmas.IsEmpty || !covariance.IsEmpty;
+            if (wantCov)
             {
-                h = double.NaN;
-                return BalanceStatus.CovarianceNotPositiveDefinite;
+                psi[..(m * m)].CopyTo(_psiS);
             }
-        }
 
-        Propagate(rates, sigmas, covariance, wantCov);
-        return Nullity == 0 ? BalanceStatus.Solved : BalanceStatus.PartlyDetermined;
+            if (rho > 0)
+            {
+                if (!Reconcile(q, psi, wantCov, out h))
+                {
+                    h = double.NaN;
+                    return BalanceStatus.CovarianceNotPositiveDefinite;
+                }
+            }
+
+            Propagate(rates, sigmas, covariance, wantCov);
+            return Nullity == 0 ? BalanceStatus.Solved : BalanceStatus.PartlyDetermined;
+        }
     }
 
     private bool Reconcile(ReadOnlySpan<double> q, ReadOnlySpan<double> psi, bool wantCov, out double h)
     {
-        int m = MeasuredColumns.Length, rho = Redundancy;
-        h = 0;
-
-        // eps = R_r q_m; T = Psi R_r^T; Phi = R_r T (METHODS.md 2.4).
-        for (int i = 0; i < rho; i++)
+        unchecked
         {
-            _eps[i] = Dot(_rr.AsSpan(i * m, m), q);
-        }
+            int m = MeasuredColumns.Length, rho = Redundancy;
+            h = 0;
 
-        for (int i = 0; i < m; i++)
-        {
-            var psiRow = psi.Slice(i * m, m);
-            for (int k = 0; k < rho; k++)
+            // eps = R_r q_m; T = Psi R_r^T; Phi = R_r T (METHODS.md 2.4).
+            for (int i = 0; i < rho; i++)
             {
-                _t[(i * rho) + k] = Dot(psiRow, _rr.AsSpan(k * m, m));
-            }
-        }
-
-        for (int a = 0; a < rho; a++)
-        {
-            for (int b = 0; b <= a; b++)
-            {
-                double s = 0;
-                for (int j = 0; j < m; j++)
-                {
-                    s += _rr[(a * m) + j] * _t[(j * rho) + b];
-                }
-
-                _phi[(a * rho) + b] = s;
-            }
-        }
-
-        if (!DenseCholesky.FactorInPlace(_phi, rho))
-        {
-            return false;
-        }
-
-        // z = Phi^-1 eps, h = eps^T z; reconciled q* = q - T z.
-        _eps.CopyTo(_z, 0);
-        DenseCholesky.SolveInPlace(_phi, rho, _z);
-        h = Dot(_eps, _z);
-        for (int i = 0; i < m; i++)
-        {
-            _qs[i] = q[i] - Dot(_t.AsSpan(i * rho, rho), _z);
-        }
-
-        if (wantCov)
-        {
-            // Psi* = Psi - T Phi^-1 T^T = Psi - G^T G with G = L^-1 T^T (rho x m).
-            for (int j = 0; j < m; j++)
-            {
-                for (int k = 0; k < rho; k++)
-                {
-                    _g[(k * m) + j] = _t[(j * rho) + k];
-                }
+                _eps[i] = Dot(_rr.AsSpan(i * m, m), q);
             }
 
-            DenseCholesky.ForwardColumns(_phi, rho, _g, m);
             for (int i = 0; i < m; i++)
             {
-                for (int j = 0; j < m; j++)
+                var psiRow = psi.Slice(i * m, m);
+                for (int k = 0; k < rho; k++)
                 {
-                    double s = 0;
-                    for (int k = 0; k < rho; k++)
-                    {
-                        s += _g[(k * m) + i] * _g[(k * m) + j];
-                    }
-
-                    _psiS[(i * m) + j] -= s;
+                    _t[(i * rho) + k] = Dot(psiRow, _rr.AsSpan(k * m, m));
                 }
             }
-        }
 
-        return true;
+            for (int a = 0; a < rho; a++)
+            {
+                for (int b = 0; b <= a; b++)
+                {
+                    double s = 0;
+                    for (int j = 0; j < m; j++)
+                    {
+                        s += _rr[(a * m) + j] * _t[(j * rho) + b];
+                    }
+
+                    _phi[(a * rho) + b] = s;
+                }
+            }
+
+            if (!DenseCholesky.FactorInPlace(_phi, rho))
+            {
+                return false;
+            }
+
+            // z = Phi^-1 eps, h = eps^T z; reconciled q* = q - T z.
+            _eps.CopyTo(_z, 0);
+            DenseCholesky.SolveInPlace(_phi, rho, _z);
+            h = Dot(_eps, _z);
+            for (int i = 0; i < m; i++)
+            {
+                _qs[i] = q[i] - Dot(_t.AsSpan(i * rho, rho), _z);
+            }
+
+            if (wantCov)
+            {
+                // Psi* = Psi - T Phi^-1 T^T = Psi - G^T G with G = L^-1 T^T (rho x m).
+                for (int j = 0; j < m; j++)
+                {
+                    for (int k = 0; k < rho; k++)
+                    {
+                        _g[(k * m) + j] = _t[(j * rho) + k];
+                    }
+                }
+
+                DenseCholesky.ForwardColumns(_phi, rho, _g, m);
+                for (int i = 0; i < m; i++)
+                {
+                    for (int j = 0; j < m; j++)
+                    {
+                        double s = 0;
+                        for (int k = 0; k < rho; k++)
+                        {
+                            s += _g[(k * m) + i] * _g[(k * m) + j];
+                        }
+
+                        _psiS[(i * m) + j] -= s;
+                    }
+                }
+            }
+
+            return true;
+        }
     }
 
     private void Propagate(Span<double> rates, Span<double> sigmas, Span<double> covariance, bool wantCov)
     {
-        int m = MeasuredColumns.Length, u = UnknownColumns.Length, n = Columns;
-        for (int i = 0; i < m; i++)
+        unchecked
         {
-            rates[MeasuredColumns[i]] = _qs[i];
-        }
-
-        for (int j = 0; j < u; j++)
-        {
-            rates[UnknownColumns[j]] = Calculable[j] ? Dot(_k.AsSpan(j * m, m), _qs) : double.NaN;
-        }
-
-        if (!wantCov)
-        {
-            return;
-        }
-
-        // Cov(q_u) = K Psi* K^T, Cov(q_u, q_m) = K Psi*.
-        for (int j = 0; j < u; j++)
-        {
-            var kRow = _k.AsSpan(j * m, m);
+            int m = MeasuredColumns.Length, u = UnknownColumns.Length, n = Columns;
             for (int i = 0; i < m; i++)
             {
-                double s = 0;
-                for (int l = 0; l < m; l++)
+                rates[MeasuredColumns[i]] = _qs[i];
+            }
+
+            for (int j = 0; j < u; j++)
+            {
+                rates[UnknownColumns[j]] = Calculable[j] ? Dot(_k.AsSpan(j * m, m), _qs) : double.NaN;
+            }
+
+            if (!wantCov)
+            {
+                return;
+            }
+
+            // Cov(q_u) = K Psi* K^T, Cov(q_u, q_m) = K Psi*.
+            for (int j = 0; j < u; j++)
+            {
+                var kRow = _k.AsSpan(j * m, m);
+                for (int i = 0; i < m; i++)
                 {
-                    s += kRow[l] * _psiS[(l * m) + i];
+                    double s = 0;
+                    for (int l = 0; l < m; l++)
+                    {
+                        s += kRow[l] * _psiS[(l * m) + i];
+                    }
+
+                    _kp[(j * m) + i] = s;
+                }
+            }
+
+            for (int a = 0; a < n; a++)
+            {
+                double v = CovarianceEntry(a, a);
+                if (!sigmas.IsEmpty)
+                {
+                    sigmas[a] = double.IsNaN(v) ? double.NaN : Math.Sqrt(Math.Max(0, v));
                 }
 
-                _kp[(j * m) + i] = s;
-            }
-        }
-
-        for (int a = 0; a < n; a++)
-        {
-            for (int b = 0; b < n; b++)
-            {
-                if ((a != b && covariance.IsEmpty) || (a > b && !covariance.IsEmpty))
+                if (covariance.IsEmpty)
                 {
                     continue;
                 }
 
-                double c = CovarianceEntry(a, b);
-                if (a == b && !sigmas.IsEmpty)
+                for (int b = 0; b <= a; b++)
                 {
-                    sigmas[a] = double.IsNaN(c) ? double.NaN : Math.Sqrt(Math.Max(0, c));
-                }
-
-                if (!covariance.IsEmpty)
-                {
+                    double c = b == a ? v : CovarianceEntry(a, b);
                     covariance[(a * n) + b] = c;
                     covariance[(b * n) + a] = c;
                 }
@@ -287,40 +294,46 @@ internal sealed class BalanceKernel
 
     private double CovarianceEntry(int a, int b)
     {
-        int m = MeasuredColumns.Length;
-        int ma = _measuredAt[a], mb = _measuredAt[b], ua = _unknownAt[a], ub = _unknownAt[b];
-        if ((ua >= 0 && !Calculable[ua]) || (ub >= 0 && !Calculable[ub]))
+        unchecked
         {
-            return double.NaN;
-        }
+            int m = MeasuredColumns.Length;
+            int ma = _measuredAt[a], mb = _measuredAt[b], ua = _unknownAt[a], ub = _unknownAt[b];
+            if ((ua >= 0 && !Calculable[ua]) || (ub >= 0 && !Calculable[ub]))
+            {
+                return double.NaN;
+            }
 
-        if (ma >= 0 && mb >= 0)
-        {
-            return _psiS[(ma * m) + mb];
-        }
+            if (ma >= 0 && mb >= 0)
+            {
+                return _psiS[(ma * m) + mb];
+            }
 
-        if (ua >= 0 && mb >= 0)
-        {
-            return _kp[(ua * m) + mb];
-        }
+            if (ua >= 0 && mb >= 0)
+            {
+                return _kp[(ua * m) + mb];
+            }
 
-        if (ma >= 0 && ub >= 0)
-        {
-            return _kp[(ub * m) + ma];
-        }
+            if (ma >= 0 && ub >= 0)
+            {
+                return _kp[(ub * m) + ma];
+            }
 
-        return Dot(_kp.AsSpan(ua * m, m), _k.AsSpan(ub * m, m));
+            return Dot(_kp.AsSpan(ua * m, m), _k.AsSpan(ub * m, m));
+        }
     }
 
     private static double Dot(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
     {
-        double s = 0;
-        for (int i = 0; i < x.Length; i++)
+        unchecked
         {
-            s += x[i] * y[i];
-        }
+            double s = 0;
+            for (int i = 0; i < x.Length; i++)
+            {
+                s += x[i] * y[i];
+            }
 
-        return s;
+            return s;
+        }
     }
 
     private static double[,] Select(double[,] a, int[] columns)

@@ -13,77 +13,86 @@ internal static class DenseCholesky
     /// <summary>Overwrites the lower triangle with L; false when the matrix is not positive definite.</summary>
     public static bool FactorInPlace(Span<double> a, int n)
     {
-        for (int j = 0; j < n; j++)
+        unchecked
         {
-            double original = a[(j * n) + j];
-            double d = original;
-            for (int k = 0; k < j; k++)
+            for (int j = 0; j < n; j++)
             {
-                d -= a[(j * n) + k] * a[(j * n) + k];
-            }
-
-            if (!(d > RelativePivotFloor * Math.Abs(original)) || !double.IsFinite(d))
-            {
-                return false;
-            }
-
-            double l = Math.Sqrt(d);
-            a[(j * n) + j] = l;
-            for (int i = j + 1; i < n; i++)
-            {
-                double s = a[(i * n) + j];
+                double original = a[(j * n) + j];
+                double d = original;
                 for (int k = 0; k < j; k++)
                 {
-                    s -= a[(i * n) + k] * a[(j * n) + k];
+                    d -= a[(j * n) + k] * a[(j * n) + k];
                 }
 
-                a[(i * n) + j] = s / l;
-            }
-        }
+                if (!(d > RelativePivotFloor * Math.Abs(original)) || !double.IsFinite(d))
+                {
+                    return false;
+                }
 
-        return true;
+                double l = Math.Sqrt(d);
+                a[(j * n) + j] = l;
+                for (int i = j + 1; i < n; i++)
+                {
+                    double s = a[(i * n) + j];
+                    for (int k = 0; k < j; k++)
+                    {
+                        s -= a[(i * n) + k] * a[(j * n) + k];
+                    }
+
+                    a[(i * n) + j] = s / l;
+                }
+            }
+
+            return true;
+        }
     }
 
     /// <summary>Solves L L^T x = b in place.</summary>
     public static void SolveInPlace(ReadOnlySpan<double> l, int n, Span<double> b)
     {
-        for (int i = 0; i < n; i++)
+        unchecked
         {
-            double s = b[i];
-            for (int k = 0; k < i; k++)
+            for (int i = 0; i < n; i++)
             {
-                s -= l[(i * n) + k] * b[k];
+                double s = b[i];
+                for (int k = 0; k < i; k++)
+                {
+                    s -= l[(i * n) + k] * b[k];
+                }
+
+                b[i] = s / l[(i * n) + i];
             }
 
-            b[i] = s / l[(i * n) + i];
-        }
-
-        for (int i = n - 1; i >= 0; i--)
-        {
-            double s = b[i];
-            for (int k = i + 1; k < n; k++)
+            for (int i = n - 1; i >= 0; i--)
             {
-                s -= l[(k * n) + i] * b[k];
-            }
+                double s = b[i];
+                for (int k = i + 1; k < n; k++)
+                {
+                    s -= l[(k * n) + i] * b[k];
+                }
 
-            b[i] = s / l[(i * n) + i];
+                b[i] = s / l[(i * n) + i];
+            }
         }
     }
 
     /// <summary>Solves L Y = G in place for G of n rows and <paramref name="columns"/> columns, row-major.</summary>
     public static void ForwardColumns(ReadOnlySpan<double> l, int n, Span<double> g, int columns)
     {
-        for (int c = 0; c < columns; c++)
+        unchecked
         {
-            for (int i = 0; i < n; i++)
+            for (int c = 0; c < columns; c++)
             {
-                double s = g[(i * columns) + c];
-                for (int k = 0; k < i; k++)
+                for (int i = 0; i < n; i++)
                 {
-                    s -= l[(i * n) + k] * g[(k * columns) + c];
-                }
+                    double s = g[(i * columns) + c];
+                    for (int k = 0; k < i; k++)
+                    {
+                        s -= l[(i * n) + k] * g[(k * columns) + c];
+                    }
 
-                g[(i * columns) + c] = s / l[(i * n) + i];
+                    g[(i * columns) + c] = s / l[(i * n) + i];
+                }
             }
         }
     }

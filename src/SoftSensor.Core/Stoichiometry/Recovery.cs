@@ -9,7 +9,7 @@ namespace SoftSensor.Core.Stoichiometry;
 /// </summary>
 public static class Recovery
 {
-    /// <summary>The recovery of <paramref name="balance"/>; NaN values are skipped; NaN when nothing enters.</summary>
+    /// <summary>The recovery of <paramref name="balance"/>; NaN values are skipped; NaN when nothing enters or nothing leaves (one side unmeasured says nothing).</summary>
     public static double Of(Balance balance, IReadOnlyList<Compound> compounds, ReadOnlySpan<double> rates)
     {
         ArgumentNullException.ThrowIfNull(compounds);
@@ -37,6 +37,6 @@ public static class Recovery
             }
         }
 
-        return incoming > 0 ? outgoing / incoming : double.NaN;
+        return incoming > 0 && outgoing > 0 ? outgoing / incoming : double.NaN;
     }
 }

@@ -5,9 +5,9 @@ namespace SoftSensor.Simulation.Faults;
 /// <summary>The scenario's injected faults, asked by time: what is wrong at hour t.</summary>
 internal sealed class FaultSchedule
 {
-    private readonly IReadOnlyList<FaultSpec> _faults;
+    private readonly FaultSpec[] _faults;
 
-    public FaultSchedule(IReadOnlyList<FaultSpec> faults) => _faults = faults;
+    public FaultSchedule(IReadOnlyList<FaultSpec> faults) => _faults = [.. faults];
 
     /// <summary>True when any fault is active.</summary>
     public bool AnyActive(double tH)

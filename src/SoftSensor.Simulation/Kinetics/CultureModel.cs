@@ -61,15 +61,21 @@ public sealed class CultureModel
         double c = Math.Max(0, o2MmolPerL);
         double x = Math.Max(0, xGPerL);
         double fO2 = c / (_spec.OxygenKsMmolPerL + c);
-        double qs = _qsMax * s / (_spec.KsGPerL + s) * fO2;
+        // Without an overflow route O2 limits the whole uptake; with one it limits the respiratory
+        // capacity only, and the rest of the uptake ferments (as Crabtree-positive yeasts do).
+        double qs = _qsMax * s / (_spec.KsGPerL + s) * (_spec.Overflow is null ? fO2 : 1.0);
         return EvaluateAtUptake(x, qs, Math.Max(0, pGPerL), fO2);
     }
 
-    /// <summary>Rates when the specific substrate uptake is imposed (a chemostat or a check of the kinetics).</summary>
+    /// <summary>
+    /// Rates when the specific substrate uptake is imposed (a chemostat or a check of the kinetics);
+    /// <paramref name="fO2"/> is the O2 saturation term c/(K_O2 + c), 1 without O2 limitation.
+    /// </summary>
     public CultureRates EvaluateAtUptake(double xGPerL, double qsGPerGH, double pGPerL, double fO2)
     {
         var o = _spec.Overflow;
-        double qsOx = o is null ? qsGPerGH : Math.Min(qsGPerGH, o.CriticalQsGPerGH);
+        double capacity = o is null ? double.PositiveInfinity : o.CriticalQsGPerGH * fO2;
+        double qsOx = Math.Min(qsGPerGH, capacity);
         double excess = qsGPerGH - qsOx;
 
         // Per gram of biomass and hour, in C-mol: substrate consumed (negative), biomass made.
@@ -90,7 +96,7 @@ public sealed class CultureModel
             // Re-uptake of the product with the respiratory capacity left over (in electrons).
             if (o.ReuptakeMaxGPerGH > 0 && pGPerL > 0)
             {
-                double spareElectrons = Math.Max(0, o.CriticalQsGPerGH - qsOx) / Substrate.GramsPerCmol * Substrate.Gamma;
+                double spareElectrons = Math.Max(0, capacity - qsOx) / Substrate.GramsPerCmol * Substrate.Gamma;
                 double want = o.ReuptakeMaxGPerGH * pGPerL / (o.ReuptakeKsGPerL + pGPerL) * fO2 / ov.GramsPerCmol;
                 double up = Math.Min(want, spareElectrons / ov.Gamma);
                 pCmol -= up;

@@ -26,6 +26,8 @@ internal sealed class ReactorModel
     private readonly double _ticPerCo2;
     private readonly double _refMolarVolume;
     private readonly double _molPerLGas;
+    private double _klaFlowNl = double.NaN;
+    private double _kla;
 
     public ReactorModel(Scenario s, CultureModel culture, Schedule schedule, FaultSchedule faults)
     {
@@ -82,7 +84,7 @@ internal sealed class ReactorModel
 
     /// <summary>
     /// Backward-Euler step of dissolved O2 over <paramref name="h"/> hours from <paramref name="c0"/>:
-    /// c = c0 + h (kLa (C* - c) - OUR(c) - c dV/V / V), solved by safeguarded Newton on [0, max(c0, C*)]. The O2
+    /// c = c0 + h (kLa (C* - c) - OUR(c) - c (dV/dt) / V), solved by safeguarded Newton on [0, max(c0, C*)]. The O2
     /// equation is stiff near zero DO (dOUR/dc ~ OUR_max/K_O2), where an explicit step of a second
     /// would oscillate; the implicit step is stable for any step (common practice for stiff ODEs).
     /// </summary>
@@ -152,7 +154,13 @@ internal sealed class ReactorModel
 
         var (nIn, yO2In, yCo2In, totalNl) = Inlet(tH);
         var tr = _s.Transfer;
-        double kla = Math.Max(tr.KlaMinimumPerH, tr.KlaPerH * Math.Pow(totalNl / tr.KlaReferenceFlowNlPerMin, tr.KlaFlowExponent));
+        if (totalNl != _klaFlowNl)
+        {
+            _klaFlowNl = totalNl;
+            _kla = Math.Max(tr.KlaMinimumPerH, tr.KlaPerH * Math.Pow(totalNl / tr.KlaReferenceFlowNlPerMin, tr.KlaFlowExponent));
+        }
+
+        double kla = _kla;
         double cStar = OxygenSaturation(yO2);
         double otr = kla * (cStar - c);
         double co2Aq = tic / _ticPerCo2;

@@ -21,7 +21,7 @@ public class AlignedGasBalanceTests
     }
 
     private static readonly AlignedGasBalanceSettings Measured =
-        AlignedGasBalanceSettings.Default with { Inlet = InletComposition.Measured(double.NaN, double.NaN) };
+        AlignedGasBalanceSettings.Default with { Inlet = InletSource.Measured };
 
     [Fact]
     public void Compute_aligned_hand_case_matches_direct_balance()
@@ -65,6 +65,16 @@ public class AlignedGasBalanceTests
         a.Set(SignalRole.PressureKPa, 101.325, SampleQuality.Good, T0);
         var r = GasBalance.Compute(a, Measured with { AnalyserBasis = AnalyserBasis.Saturated });
         Assert.Equal(38.629, r.OurMmolPerLh, 0.0005);
+    }
+
+    [Fact]
+    public void Compute_aligned_gas_line_mix_uses_configured_air_CO2()
+    {
+        // Air line at 20.9476 % O2 (U.S. Standard Atmosphere 1976) and 0.042 % CO2; the Inlet* roles are ignored.
+        var r = GasBalance.Compute(HandCase(), AlignedGasBalanceSettings.Default);
+        Assert.Equal(0.209476, r.InletO2Fraction, 15);
+        Assert.Equal(0.00042, r.InletCo2Fraction, 15);
+        Assert.Equal(38.682, r.OurMmolPerLh, 0.0005);
     }
 
     [Fact]

@@ -1,0 +1,108 @@
+using System.CommandLine;
+using Microsoft.Extensions.Logging;
+using SoftSensor.OpcUa.Encoding;
+using SoftSensor.OpcUa.Services;
+using SoftSensor.OpcUa.Session;
+using SoftSensor.OpcUa.Transport;
+
+namespace SoftSensor.Daemon.Cli;
+
+/// <summary>
+/// <c>softsensor opcua browse --endpoint URL [--path P] [--json]</c>: lists the children of a node
+/// of an OPC UA server (browse name, node id as <c>nsu=...;s=...</c>, node class, data type, value)
+/// so that an engineer can build the tag map. The path is slash-separated browse names from the
+/// root, e.g. <c>Objects/Reactor1</c>; without it the Objects folder is listed.
+/// </summary>
+internal sealed class OpcUaVerb : IVerb
+{
+    public Command Build()
+    {
+        var endpoint = new Option<string>("--endpoint") { Description = "Server endpoint, opc.tcp://host:port[/path]", Required = true };
+        var path = new Option<string>("--path") { Description = "Browse path from the root, e.g. Objects/Reactor1 (default Objects)", DefaultValueFactory = _ => "Objects" };
+        var json = new Option<bool>("--json") { Description = "Write one JSON document instead of a table" };
+        var user = new Option<string?>("--user") { Description = "User name (the password is read from the environment variable SOFTSENSOR_OPCUA_PASSWORD)" };
+        var browse = new Command("browse", "List the children of a node: browse name, node id, node class, data type, value.") { endpoint, path, json, user };
+        browse.SetAction((parse, ct) => BrowseAsync(parse.GetValue(endpoint)!, parse.GetValue(path)!, parse.GetValue(json), parse.GetValue(user), ct));
+        return new Command("opcua", "Talk to an OPC UA server (SecurityPolicy None only, for now).") { browse };
+    }
+
+    private static async Task<int> BrowseAsync(string endpointUrl, string path, bool json, string? user, CancellationToken cancellationToken)
+    {
+        try
+        {
+            EndpointAddress.Parse(endpointUrl);
+        }
+        catch (FormatException e)
+        {
+            return CliOutput.BadInput(Console.Error, $"--endpoint: {e.Message}");
+        }
+
+        var identity = UserIdentity.Anonymous;
+        if (!string.IsNullOrEmpty(user))
+        {
+            string? password = Environment.GetEnvironmentVariable("SOFTSENSOR_OPCUA_PASSWORD");
+            if (password is null)
+            {
+                return CliOutput.BadInput(Console.Error, $"--user '{user}': set the password in the environment variable SOFTSENSOR_OPCUA_PASSWORD");
+            }
+
+            identity = UserIdentity.UserName(user, password);
+        }
+
+        using var logs = LoggerFactory.Create(b => b.SetMinimumLevel(LogLevel.Warning).AddSimpleConsole(o => o.SingleLine = true).AddConsole(o => o.LogToStandardErrorThreshold = LogLevel.Trace));
+        var logger = logs.CreateLogger("opcua");
+        try
+        {
+            await using var connection = await UaConnection.OpenAsync(new SessionOptions { EndpointUrl = endpointUrl, Identity = identity }, TimeProvider.System, logger, cancellationToken);
+            var target = await BrowsePathResolver.ResolveAsync(connection.Session, path, cancellationToken);
+            if (!target.IsFound)
+            {
+                return CliOutput.BadInput(Console.Error, $"--path '{path}': {target.Error}");
+            }
+
+            var children = await NodeBrowser.ListChildrenAsync(connection.Session, target.Node!, cancellationToken);
+            var nodeId = connection.Session.Namespaces.ToExpanded(target.Node!).ToString();
+            if (json)
+            {
+                CliOutput.WriteJson(Console.Out, new BrowseListing(endpointUrl, path, nodeId, [.. children.Select(BrowseListingRow.From)]));
+            }
+            else
+            {
+                WriteTable(path, nodeId, children);
+            }
+
+            return ExitCodes.Ok;
+        }
+        catch (ServiceResultException e)
+        {
+            await Console.Error.WriteLineAsync($"error: {endpointUrl}: {e.Message}");
+            return ExitCodes.Failure;
+        }
+    }
+
+    private static void WriteTable(string path, string nodeId, IReadOnlyList<BrowsedNode> children)
+    {
+        Console.Out.WriteLine($"{path} ({nodeId}): {children.Count} children");
+        Console.Out.WriteLine($"{"browse name",-28} {"class",-13} {"data type",-14} {"value",-24} node id");
+        foreach (var c in children)
+        {
+            string value = c.Value is null ? string.Empty : c.Value.Status.IsGood ? c.Value.Value.ToString() : $"{c.Value.Value} [{c.Value.Status}]";
+            Console.Out.WriteLine($"{c.BrowseName,-28} {c.NodeClass,-13} {c.DataType ?? string.Empty,-14} {value,-24} {c.NodeId}");
+        }
+    }
+
+    private sealed record BrowseListing(string Endpoint, string Path, string NodeId, BrowseListingRow[] Children);
+
+    private sealed record BrowseListingRow(string BrowseName, string NodeId, string NodeClass, string? DataType, object? Value, string? Quality, uint? StatusCode, DateTime? SourceTimestamp)
+    {
+        public static BrowseListingRow From(BrowsedNode n) => new(
+            n.BrowseName,
+            n.NodeId.ToString(),
+            n.NodeClass.ToString(),
+            n.DataType,
+            n.Value?.Value is { IsNull: false } v ? v.AsDouble() is double d && double.IsFinite(d) ? d : v.ToString() : null,
+            n.Value?.Status.Severity.ToString(),
+            n.Value?.Status.Code,
+            n.Value is { SourceTimestamp: var t } && t != DateTime.MinValue ? t : null);
+    }
+}

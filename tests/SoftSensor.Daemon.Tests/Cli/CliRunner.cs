@@ -1,0 +1,31 @@
+using System.CommandLine;
+using SoftSensor.Daemon.Cli;
+
+namespace SoftSensor.Daemon.Tests.Cli;
+
+/// <summary>Runs a verb in-process as Program does (parse errors: one line each on stderr, exit 2), capturing stdout and stderr.</summary>
+internal static class CliRunner
+{
+    public static (int ExitCode, string Output, string Error) Run(params string[] args)
+    {
+        using var output = new StringWriter();
+        using var error = new StringWriter();
+        var parse = VerbCatalog.BuildRoot().Parse(args);
+        int code;
+        if (parse.Errors.Count > 0)
+        {
+            foreach (var e in parse.Errors)
+            {
+                error.WriteLine("error: " + e.Message);
+            }
+
+            code = ExitCodes.BadInput;
+        }
+        else
+        {
+            code = parse.Invoke(new InvocationConfiguration { Output = output, Error = error });
+        }
+
+        return (code, output.ToString(), error.ToString());
+    }
+}
