@@ -93,8 +93,8 @@ internal static class ReplayConfigLoader
             };
         }
 
-        var inlet = g.Inlet == "measured" ? InletComposition.Measured(double.NaN, double.NaN) : InletComposition.FromGasLines(g.AirCo2Fraction);
-        var gas = new AlignedGasBalanceSettings(balance, lines, inlet, AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(g.MaxInputAgeS));
+        var inlet = g.Inlet == "measured" ? InletSource.Measured : InletSource.GasLines;
+        var gas = new AlignedGasBalanceSettings(balance, lines, inlet, g.AirCo2Fraction, AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(g.MaxInputAgeS));
         var b = c.Balance;
         return new CycleSettings
         {
