@@ -9,6 +9,8 @@ using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sinks;
 using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Store;
+using SoftSensor.Daemon.Timeseries;
+using SoftSensor.Daemon.Alarming;
 
 namespace SoftSensor.Daemon.Hosting;
 
@@ -42,6 +44,7 @@ internal static class DaemonServices
         // Sinks run in registration order: the store first (the durable outbox), then MQTT.
         services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
         services.AddSingleton<IEstimateSink, MqttEstimateSink>();
+        services.AddTimeseries(configuration).AddAlarms(configuration);
 
         // OPC UA: tags with an opcUaNode, and estimates written back (section opcUa); after MQTT.
         services.AddOpcUaAdapter(configuration);
