@@ -5,6 +5,7 @@ using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Alarming;
 using SoftSensor.Daemon.Status;
 
 namespace SoftSensor.Daemon.Hosting;
@@ -42,6 +43,7 @@ internal static class DaemonHost
         // The exporter listens from the start, so /metrics counts what happened before its first request.
         app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();
+        app.MapAlarmEndpoints();
         return app;
     }
 
