@@ -38,4 +38,17 @@ public static class EstimateNames
     public const string FeedAdvisoryLPerH = "feed_advisory_l_per_h";
     public const string FeedCapLPerH = "feed_cap_l_per_h";
     public const string Kla = "kla_per_h";
+    public const string OurSigma = "our_sigma";
+    public const string CerSigma = "cer_sigma";
+    public const string MuEkfPerH = "mu_ekf_per_h";
+    public const string BiomassSigmaGPerL = "biomass_sigma_g_per_l";
+    public const string BiomassIntegratorGPerL = "biomass_integrator_g_per_l";
+    public const string BiomassEkfGPerL = "biomass_ekf_g_per_l";
+    public const string QO2 = "q_o2_mmol_per_g_h";
+    public const string QCo2 = "q_co2_mmol_per_g_h";
+    public const string QSubstrate = "q_s_g_per_g_h";
+    public const string SubstrateGPerL = "substrate_g_per_l";
+    public const string FeedSetpointLPerH = "feed_setpoint_l_per_h";
+    public const string FeedOverflowCapLPerH = "feed_overflow_cap_l_per_h";
+    public const string OtrMax = "otr_max_mmol_per_l_h";
 }

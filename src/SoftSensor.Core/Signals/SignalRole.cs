@@ -42,13 +42,15 @@ public enum SignalRole
     AnalyserTemperatureC,
     /// <summary>Analyser is calibrating or switched to the reference stream (1 = yes).</summary>
     AnalyserCalibrating,
+    /// <summary>Totaliser of broth removed by samples and harvests since the start, L.</summary>
+    RemovedVolumeL,
 }
 
 /// <summary>Helpers on <see cref="SignalRole"/>.</summary>
 public static class SignalRoles
 {
     /// <summary>Number of roles.</summary>
-    public const int Count = (int)SignalRole.AnalyserCalibrating + 1;
+    public const int Count = (int)SignalRole.RemovedVolumeL + 1;
 
     /// <summary>The unit of a role's value, as shown to users.</summary>
     public static string UnitOf(SignalRole role) => role switch
@@ -59,7 +61,7 @@ public static class SignalRoles
             or SignalRole.OutletCo2Percent or SignalRole.DissolvedOxygenPercent => "%",
         SignalRole.PressureKPa => "kPa",
         SignalRole.TemperatureC or SignalRole.AnalyserTemperatureC => "°C",
-        SignalRole.LiquidVolumeL => "L",
+        SignalRole.LiquidVolumeL or SignalRole.RemovedVolumeL => "L",
         SignalRole.WeightKg => "kg",
         SignalRole.FeedRateLPerH or SignalRole.BaseRateLPerH => "L/h",
         SignalRole.Ph => "pH",

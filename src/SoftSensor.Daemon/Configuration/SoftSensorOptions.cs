@@ -1,0 +1,47 @@
+namespace SoftSensor.Daemon.Configuration;
+
+/// <summary>
+/// The daemon's configuration (bound from the configuration's root). The shape is the project's own and is
+/// documented in the README ("Running the daemon"): a plant hierarchy (site, area), the reactors with
+/// their tag maps, and one section per adapter.
+/// </summary>
+internal sealed class SoftSensorOptions
+{
+    /// <summary>Site name: first level of the MQTT topic hierarchy (lowercase, no '/', '+' or '#').</summary>
+    public string Site { get; set; } = "";
+
+    /// <summary>Area (building, suite, line) inside the site: second level of the hierarchy.</summary>
+    public string Area { get; set; } = "";
+
+    /// <summary>The reactors this daemon serves, one pipeline each.</summary>
+    public List<ReactorOptions> Reactors { get; set; } = [];
+
+    /// <summary>The MQTT broker link.</summary>
+    public MqttOptions Mqtt { get; set; } = new();
+
+    /// <summary>The embedded store.</summary>
+    public StoreOptions Store { get; set; } = new();
+
+    /// <summary>The status page.</summary>
+    public StatusOptions Status { get; set; } = new();
+}
+
+/// <summary>Section <c>store</c>: the embedded SQLite store.</summary>
+internal sealed class StoreOptions
+{
+    /// <summary>Path of the SQLite file (created with its folder when missing).</summary>
+    public string Path { get; set; } = "data/softsensor.db";
+
+    /// <summary>A state checkpoint is written every this many cycles (and on stop).</summary>
+    public int CheckpointEveryCycles { get; set; } = 10;
+}
+
+/// <summary>Section <c>status</c>: the status page and metrics endpoint.</summary>
+internal sealed class StatusOptions
+{
+    /// <summary>Listen URL; loopback by default. Port 0 picks a free port.</summary>
+    public string Url { get; set; } = "http://127.0.0.1:8470";
+
+    /// <summary>Hours of trend shown on the status page.</summary>
+    public double TrendHours { get; set; } = 12;
+}

@@ -1,0 +1,72 @@
+using Microsoft.Extensions.Configuration;
+
+namespace SoftSensor.Daemon.Hosting;
+
+/// <summary>
+/// The configuration layers of the daemon, lowest priority first (INTEGRATION.md "Host conventions"):
+/// <c>appsettings.json</c> beside the executable, the <c>--config</c> file, every
+/// <c>/etc/softsensor/*.json</c> in name order, in-memory overrides (the demo's broker port),
+/// environment variables <c>SOFTSENSOR_*</c> with <c>__</c> between sections, and the command line
+/// (<c>--mqtt:port=1884</c>).
+/// </summary>
+internal static class DaemonConfiguration
+{
+    /// <summary>Prefix of the environment variables read.</summary>
+    public const string EnvironmentPrefix = "SOFTSENSOR_";
+
+    /// <summary>The system-wide folder of configuration fragments.</summary>
+    public const string SystemFolder = "/etc/softsensor";
+
+    /// <summary>Adds the layers to <paramref name="configuration"/> after removing the defaults.</summary>
+    public static void Apply(IConfigurationManager configuration, DaemonHostSettings settings)
+    {
+        configuration.Sources.Clear();
+        configuration.AddJsonFile(Path.Combine(AppContext.BaseDirectory, "appsettings.json"), optional: true, reloadOnChange: false);
+        if (settings.ConfigFile is { } file)
+        {
+            configuration.AddJsonFile(Path.GetFullPath(file), optional: false, reloadOnChange: false);
+        }
+
+        string folder = settings.SystemFolder ?? SystemFolder;
+        if (Directory.Exists(folder))
+        {
+            foreach (var f in Directory.GetFiles(folder, "*.json").OrderBy(f => f, StringComparer.Ordinal))
+            {
+                configuration.AddJsonFile(f, optional: true, reloadOnChange: false);
+            }
+        }
+
+        if (settings.Overrides.Count > 0)
+        {
+            configuration.AddInMemoryCollection(settings.Overrides);
+        }
+
+        configuration.AddEnvironmentVariables(EnvironmentPrefix);
+        if (settings.CommandLine.Count > 0)
+        {
+            configuration.AddCommandLine([.. settings.CommandLine]);
+        }
+    }
+}
+
+/// <summary>How a daemon host is built: the config file, overrides, and hooks for the demo and tests.</summary>
+internal sealed class DaemonHostSettings
+{
+    /// <summary>The <c>--config</c> file, or null.</summary>
+    public string? ConfigFile { get; init; }
+
+    /// <summary>Replaces <see cref="DaemonConfiguration.SystemFolder"/> (tests); null for the default.</summary>
+    public string? SystemFolder { get; init; }
+
+    /// <summary>Configuration keys set above the files (e.g. the demo broker's port).</summary>
+    public Dictionary<string, string?> Overrides { get; init; } = new(StringComparer.OrdinalIgnoreCase);
+
+    /// <summary>Command-line overrides (<c>--key=value</c>), highest priority.</summary>
+    public IReadOnlyList<string> CommandLine { get; init; } = [];
+
+    /// <summary>Extra registrations after the daemon's own (a clock for the demo, extra sinks).</summary>
+    public Action<Microsoft.Extensions.DependencyInjection.IServiceCollection>? ConfigureServices { get; init; }
+
+    /// <summary>Minimum log level of the console (Information by default; the demo uses Warning).</summary>
+    public Microsoft.Extensions.Logging.LogLevel ConsoleLevel { get; init; } = Microsoft.Extensions.Logging.LogLevel.Information;
+}

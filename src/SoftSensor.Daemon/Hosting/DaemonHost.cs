@@ -1,0 +1,54 @@
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Hosting.Server;
+using Microsoft.AspNetCore.Hosting.Server.Features;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Status;
+
+namespace SoftSensor.Daemon.Hosting;
+
+/// <summary>
+/// Builds the daemon: an ASP.NET Core host (the status page runs in-process) with systemd
+/// integration (Type=notify; journal-formatted logs under systemd), the layered configuration,
+/// the daemon's services and the status endpoints on <c>status:url</c>.
+/// </summary>
+internal static class DaemonHost
+{
+    /// <summary>Shutdown budget of the host; deploy/softsensor.service sets TimeoutStopSec above it.</summary>
+    public static readonly TimeSpan ShutdownTimeout = TimeSpan.FromSeconds(20);
+
+    /// <summary>Builds (does not start) the host.</summary>
+    public static WebApplication Build(DaemonHostSettings settings)
+    {
+        var builder = WebApplication.CreateSlimBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Directory.GetCurrentDirectory() });
+        DaemonConfiguration.Apply(builder.Configuration, settings);
+        builder.Services.AddSystemd();
+        builder.Services.Configure<HostOptions>(o => o.ShutdownTimeout = ShutdownTimeout);
+        builder.Logging.ClearProviders();
+        builder.Logging.AddSimpleConsole(o =>
+        {
+            o.SingleLine = true;
+            o.TimestampFormat = "yyyy-MM-ddTHH:mm:ssZ ";
+            o.UseUtcTimestamp = true;
+        });
+        builder.Logging.SetMinimumLevel(settings.ConsoleLevel);
+        builder.Logging.AddFilter("Microsoft", LogLevel.Warning);
+        builder.Services.AddSoftSensorDaemon(builder.Configuration);
+        settings.ConfigureServices?.Invoke(builder.Services);
+        builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
+        var app = builder.Build();
+        // The exporter listens from the start, so /metrics counts what happened before its first request.
+        app.Services.GetRequiredService<PrometheusExporter>();
+        app.MapStatusEndpoints();
+        return app;
+    }
+
+    /// <summary>The status page's address after start (the real port when the URL asked for port 0).</summary>
+    public static string StatusAddress(WebApplication app)
+    {
+        var addresses = app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>();
+        return addresses?.Addresses.FirstOrDefault() ?? app.Urls.FirstOrDefault() ?? "";
+    }
+}

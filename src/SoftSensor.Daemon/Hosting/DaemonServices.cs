@@ -1,0 +1,55 @@
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
+using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Mqtt;
+using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Sinks;
+using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Store;
+
+namespace SoftSensor.Daemon.Hosting;
+
+/// <summary>
+/// The daemon's registrations. To plug in: add an <see cref="IEstimateSink"/>
+/// (<c>services.AddSingleton&lt;IEstimateSink, MySink&gt;()</c>: it runs after the store and MQTT
+/// sinks), an <see cref="ISampleSourceFactory"/>, or a hosted service; the store
+/// (<see cref="SqliteStore"/>) and <see cref="MqttLink"/> are singletons to inject.
+/// </summary>
+internal static class DaemonServices
+{
+    /// <summary>Registers options (validated at start), clock, metrics, store, MQTT, pipelines and sinks.</summary>
+    public static IServiceCollection AddSoftSensorDaemon(this IServiceCollection services, IConfiguration configuration)
+    {
+        services.AddOptions<SoftSensorOptions>().Bind(configuration).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<SoftSensorOptions>, SoftSensorOptionsValidator>();
+        services.TryAddSingleton(TimeProvider.System);
+        services.AddMetrics();
+        services.AddSingleton<DaemonMetrics>();
+        services.AddSingleton<PrometheusExporter>();
+        services.AddSingleton<StatusBoard>();
+        services.AddSingleton(sp => new MqttTopics(sp.GetRequiredService<IOptions<SoftSensorOptions>>().Value));
+
+        services.AddSingleton<SqliteStore>();
+        services.AddSingleton<ICheckpointStore>(sp => sp.GetRequiredService<SqliteStore>());
+
+        // The broker link keeps real time even when the demo accelerates the process clock.
+        services.AddSingleton(sp => ActivatorUtilities.CreateInstance<MqttLink>(sp, TimeProvider.System));
+        services.AddSingleton<ISampleSourceFactory, MqttSampleSourceFactory>();
+
+        // Sinks run in registration order: the store first (the durable outbox), then MQTT.
+        services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
+        services.AddSingleton<IEstimateSink, MqttEstimateSink>();
+
+        services.TryAddSingleton<IReactorCycleFactory, OffGasCycleFactory>();
+
+        // Hosted services stop in reverse order: pipelines, then the dispatcher drains, then MQTT says offline.
+        services.AddHostedService(sp => sp.GetRequiredService<MqttLink>());
+        services.AddSingleton<FrameDispatcher>();
+        services.AddHostedService(sp => sp.GetRequiredService<FrameDispatcher>());
+        services.AddSingleton<PipelineSupervisor>();
+        services.AddHostedService(sp => sp.GetRequiredService<PipelineSupervisor>());
+        return services;
+    }
+}

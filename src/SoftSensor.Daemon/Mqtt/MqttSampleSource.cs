@@ -1,0 +1,89 @@
+using System.Buffers;
+using System.Threading.Channels;
+using Microsoft.Extensions.Logging;
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Sources;
+using SoftSensor.Daemon.Status;
+
+namespace SoftSensor.Daemon.Mqtt;
+
+/// <summary>
+/// The MQTT tags of one reactor: registers a handler per tag topic on the shared <see cref="MqttLink"/>,
+/// decodes each payload by the tag's layout, scales it to the role's unit and writes the sample
+/// into the pipeline's channel (waiting when it is full). Malformed payloads are dropped, counted
+/// and logged with their topic. A payload without a timestamp gets its arrival time.
+/// </summary>
+internal sealed class MqttSampleSource : ISampleSource
+{
+    private readonly MqttLink _link;
+    private readonly IReadOnlyList<TagBinding> _bindings;
+    private readonly DaemonMetrics _metrics;
+    private readonly TimeProvider _time;
+    private readonly ILogger _logger;
+    private readonly KeyValuePair<string, object?> _reactorTag;
+
+    public MqttSampleSource(string reactor, MqttLink link, IReadOnlyList<TagBinding> bindings, DaemonMetrics metrics, TimeProvider time, ILogger logger)
+    {
+        _link = link;
+        _bindings = bindings;
+        _metrics = metrics;
+        _time = time;
+        _logger = logger;
+        _reactorTag = new("reactor", reactor);
+    }
+
+    public string Name => "mqtt";
+
+    public async Task RunAsync(ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    {
+        foreach (var b in _bindings)
+        {
+            _link.Subscribe(b.Topic, (topic, payload) => OnPayloadAsync(b, topic, payload, samples, cancellationToken));
+        }
+
+        try
+        {
+            await Task.Delay(Timeout.Infinite, cancellationToken);
+        }
+        finally
+        {
+            foreach (var b in _bindings)
+            {
+                _link.Unsubscribe(b.Topic);
+            }
+        }
+    }
+
+    private ValueTask OnPayloadAsync(TagBinding b, string topic, ReadOnlySequence<byte> payload, ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    {
+        if (!PayloadDecoder.TryDecode(payload, b.Payload, out var r, out string error))
+        {
+            _metrics.SamplesRejected.Add(1, _reactorTag);
+            MqttLog.Malformed(_logger, topic, error);
+            return ValueTask.CompletedTask;
+        }
+
+        double value = b.ToRoleUnit(r.Value);
+        if (!double.IsFinite(value))
+        {
+            _metrics.SamplesRejected.Add(1, _reactorTag);
+            MqttLog.Malformed(_logger, topic, $"scaled value {value} is not finite");
+            return ValueTask.CompletedTask;
+        }
+
+        var sample = new Sample(b.Tag, value, r.SourceTime ?? _time.GetUtcNow(), r.Quality, r.StatusCode);
+        return samples.TryWrite(sample) ? ValueTask.CompletedTask : samples.WriteAsync(sample, cancellationToken);
+    }
+}
+
+/// <summary>Makes an <see cref="MqttSampleSource"/> for every reactor with MQTT tags.</summary>
+internal sealed class MqttSampleSourceFactory(MqttLink link, DaemonMetrics metrics, TimeProvider time, ILogger<MqttSampleSource> logger) : ISampleSourceFactory
+{
+    public ISampleSource? Create(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings)
+    {
+        var mqtt = bindings.Where(b => b.Topic.Length > 0).ToList();
+        return mqtt.Count == 0 ? null : new MqttSampleSource(reactor.Id, link, mqtt, metrics, time, logger);
+    }
+}

@@ -1,0 +1,29 @@
+using SoftSensor.Daemon.Configuration;
+
+namespace SoftSensor.Daemon.Mqtt;
+
+/// <summary>
+/// The daemon's output topics in the plant hierarchy (INTEGRATION.md "MQTT": lowercase, no leading
+/// slash, separate subtrees for estimates, alarms and status):
+/// <c>{prefix}/{site}/{area}/{reactor}/estimate/{name}</c>, <c>{prefix}/{site}/{area}/{reactor}/alarm/{id}</c>,
+/// <c>{prefix}/{site}/{area}/daemon/{clientId}/status</c>.
+/// </summary>
+internal sealed class MqttTopics
+{
+    private readonly string _base;
+
+    public MqttTopics(SoftSensorOptions options)
+    {
+        _base = $"{options.Mqtt.TopicPrefix}/{options.Site}/{options.Area}";
+        Status = $"{_base}/daemon/{options.Mqtt.ClientId.ToLowerInvariant()}/status";
+    }
+
+    /// <summary>The daemon's retained online/offline topic (also the last will's).</summary>
+    public string Status { get; }
+
+    /// <summary>The topic of one estimate of one reactor.</summary>
+    public string Estimate(string reactor, string name) => $"{_base}/{reactor}/estimate/{name}";
+
+    /// <summary>The topic of one alarm of one reactor.</summary>
+    public string Alarm(string reactor, string alarmId) => $"{_base}/{reactor}/alarm/{alarmId.ToLowerInvariant()}";
+}

@@ -1,0 +1,18 @@
+namespace SoftSensor.Daemon.Pipeline;
+
+/// <summary>An estimator state checkpoint of one reactor.</summary>
+/// <param name="Reactor">Reactor id.</param>
+/// <param name="Cycle">Cycle number at which it was taken.</param>
+/// <param name="Time">Cycle time (UTC).</param>
+/// <param name="State">The state as the cycle wrote it (JSON).</param>
+internal sealed record Checkpoint(string Reactor, long Cycle, DateTimeOffset Time, string State);
+
+/// <summary>Durable storage of checkpoints (the embedded store). Thread-safe.</summary>
+internal interface ICheckpointStore
+{
+    /// <summary>The newest checkpoint of a reactor, or null.</summary>
+    ValueTask<Checkpoint?> LatestCheckpointAsync(string reactor, CancellationToken cancellationToken);
+
+    /// <summary>Writes a checkpoint durably before returning.</summary>
+    ValueTask WriteCheckpointAsync(Checkpoint checkpoint, CancellationToken cancellationToken);
+}

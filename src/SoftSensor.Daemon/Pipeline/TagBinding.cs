@@ -1,0 +1,36 @@
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Configuration;
+
+namespace SoftSensor.Daemon.Pipeline;
+
+/// <summary>A tag of a reactor's map, compiled from <see cref="TagOptions"/> after validation.</summary>
+internal sealed record TagBinding(
+    string Tag,
+    SignalRole Role,
+    string PlantUnit,
+    double Scale,
+    double Offset,
+    TimeSpan MaxAge,
+    TimeSpan DeadTime,
+    string Topic,
+    PayloadOptions Payload)
+{
+    /// <summary>Compiles every tag of a validated reactor.</summary>
+    public static IReadOnlyList<TagBinding> FromOptions(ReactorOptions reactor) =>
+        reactor.Tags
+            .OrderBy(kv => kv.Key, StringComparer.Ordinal)
+            .Select(kv => new TagBinding(
+                kv.Key,
+                Enum.Parse<SignalRole>(kv.Value.Role, ignoreCase: true),
+                kv.Value.Unit,
+                kv.Value.Scale,
+                kv.Value.Offset,
+                kv.Value.MaxAge,
+                kv.Value.DeadTime,
+                kv.Value.Topic,
+                kv.Value.Payload))
+            .ToList();
+
+    /// <summary>The raw plant value converted to the role's unit.</summary>
+    public double ToRoleUnit(double raw) => raw * Scale + Offset;
+}

@@ -1,0 +1,43 @@
+using System.Diagnostics.Metrics;
+
+namespace SoftSensor.Daemon.Status;
+
+/// <summary>
+/// The daemon's instruments (System.Diagnostics.Metrics), exported as Prometheus text at /metrics by
+/// <see cref="PrometheusExporter"/>. Every instrument carries a <c>reactor</c> tag where it has one.
+/// </summary>
+internal sealed class DaemonMetrics : IDisposable
+{
+    /// <summary>Name of the meter.</summary>
+    public const string MeterName = "SoftSensor.Daemon";
+
+    private readonly Meter _meter;
+
+    public DaemonMetrics(IMeterFactory factory)
+    {
+        _meter = factory.Create(MeterName);
+        CycleSeconds = _meter.CreateHistogram<double>("softsensor_cycle_seconds", "s", "Time spent computing and dispatching one cycle");
+        SamplesIn = _meter.CreateCounter<long>("softsensor_samples_in_total", null, "Samples accepted into the signal store");
+        SamplesRejected = _meter.CreateCounter<long>("softsensor_samples_rejected_total", null, "Payloads or samples dropped (malformed, unknown tag, non-finite)");
+        PublishFailures = _meter.CreateCounter<long>("softsensor_publish_failures_total", null, "Publishes or sink writes that failed");
+        Cycles = _meter.CreateCounter<long>("softsensor_cycles_total", null, "Cycles run");
+        Reconnects = _meter.CreateCounter<long>("softsensor_mqtt_reconnects_total", null, "MQTT connections established after the first");
+        TagToEstimateSeconds = _meter.CreateHistogram<double>("softsensor_tag_to_estimate_seconds", "s", "Arrival of the newest input to the frame leaving the dispatcher");
+    }
+
+    public Histogram<double> CycleSeconds { get; }
+
+    public Counter<long> SamplesIn { get; }
+
+    public Counter<long> SamplesRejected { get; }
+
+    public Counter<long> PublishFailures { get; }
+
+    public Counter<long> Cycles { get; }
+
+    public Counter<long> Reconnects { get; }
+
+    public Histogram<double> TagToEstimateSeconds { get; }
+
+    public void Dispose() => _meter.Dispose();
+}

@@ -1,0 +1,137 @@
+using System.Collections.Concurrent;
+using System.Diagnostics.Metrics;
+using System.Globalization;
+using System.Text;
+
+namespace SoftSensor.Daemon.Status;
+
+/// <summary>
+/// Listens to the daemon's meter and renders the Prometheus text exposition format (version 0.0.4):
+/// counters as <c>_total</c> sums, histograms as cumulative <c>_bucket</c>, <c>_sum</c>, <c>_count</c>,
+/// one series per tag set. Thread-safe.
+/// </summary>
+internal sealed class PrometheusExporter : IDisposable
+{
+    private static readonly double[] Bounds = [0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10];
+    private readonly MeterListener _listener = new();
+    private readonly ConcurrentDictionary<(string Name, string Labels), Series> _series = new();
+    private readonly ConcurrentDictionary<string, (string Kind, string Help)> _meta = new(StringComparer.Ordinal);
+
+    public PrometheusExporter(DaemonMetrics metrics)
+    {
+        ArgumentNullException.ThrowIfNull(metrics);
+        _listener.InstrumentPublished = (instrument, listener) =>
+        {
+            if (instrument.Meter.Name == DaemonMetrics.MeterName)
+            {
+                _meta[instrument.Name] = (instrument is Histogram<double> ? "histogram" : "counter", instrument.Description ?? instrument.Name);
+                listener.EnableMeasurementEvents(instrument);
+            }
+        };
+        _listener.SetMeasurementEventCallback<long>((i, v, tags, _) => Get(i, tags).Add(v));
+        _listener.SetMeasurementEventCallback<double>((i, v, tags, _) => Get(i, tags).Observe(v));
+        _listener.Start();
+    }
+
+    /// <summary>The content type of <see cref="Render"/>.</summary>
+    public const string ContentType = "text/plain; version=0.0.4; charset=utf-8";
+
+    /// <summary>Renders every series.</summary>
+    public string Render()
+    {
+        var sb = new StringBuilder();
+        foreach (var group in _series.OrderBy(s => s.Key.Name, StringComparer.Ordinal).ThenBy(s => s.Key.Labels, StringComparer.Ordinal).GroupBy(s => s.Key.Name))
+        {
+            var (kind, help) = _meta.TryGetValue(group.Key, out var m) ? m : ("counter", group.Key);
+            sb.Append("# HELP ").Append(group.Key).Append(' ').Append(help).Append('\n');
+            sb.Append("# TYPE ").Append(group.Key).Append(' ').Append(kind).Append('\n');
+            foreach (var (key, series) in group)
+            {
+                series.Write(sb, key.Name, key.Labels, kind == "histogram");
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    public void Dispose() => _listener.Dispose();
+
+    private Series Get(Instrument instrument, ReadOnlySpan<KeyValuePair<string, object?>> tags)
+    {
+        string labels = "";
+        if (tags.Length > 0)
+        {
+            var parts = new List<string>(tags.Length);
+            foreach (var t in tags)
+            {
+                parts.Add($"{t.Key}=\"{Escape(Convert.ToString(t.Value, CultureInfo.InvariantCulture) ?? "")}\"");
+            }
+
+            parts.Sort(StringComparer.Ordinal);
+            labels = string.Join(",", parts);
+        }
+
+        return _series.GetOrAdd((instrument.Name, labels), _ => new Series());
+    }
+
+    private static string Escape(string v) => v.Replace("\\", "\\\\", StringComparison.Ordinal).Replace("\"", "\\\"", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
+
+    private static string Num(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+
+    private sealed class Series
+    {
+        private readonly long[] _buckets = new long[Bounds.Length];
+        private readonly Lock _gate = new();
+        private long _count;
+        private double _sum;
+
+        public void Add(long v)
+        {
+            lock (_gate)
+            {
+                _sum += v;
+                _count++;
+            }
+        }
+
+        public void Observe(double v)
+        {
+            lock (_gate)
+            {
+                _sum += v;
+                _count++;
+                for (int i = 0; i < Bounds.Length; i++)
+                {
+                    if (v <= Bounds[i])
+                    {
+                        _buckets[i]++;
+                    }
+                }
+            }
+        }
+
+        public void Write(StringBuilder sb, string name, string labels, bool histogram)
+        {
+            lock (_gate)
+            {
+                if (!histogram)
+                {
+                    sb.Append(name).Append(Braces(labels)).Append(' ').Append(Num(_sum)).Append('\n');
+                    return;
+                }
+
+                string sep = labels.Length > 0 ? "," : "";
+                for (int i = 0; i < Bounds.Length; i++)
+                {
+                    sb.Append(name).Append("_bucket{").Append(labels).Append(sep).Append("le=\"").Append(Num(Bounds[i])).Append("\"} ").Append(_buckets[i]).Append('\n');
+                }
+
+                sb.Append(name).Append("_bucket{").Append(labels).Append(sep).Append("le=\"+Inf\"} ").Append(_count).Append('\n');
+                sb.Append(name).Append("_sum").Append(Braces(labels)).Append(' ').Append(Num(_sum)).Append('\n');
+                sb.Append(name).Append("_count").Append(Braces(labels)).Append(' ').Append(_count).Append('\n');
+            }
+        }
+
+        private static string Braces(string labels) => labels.Length == 0 ? "" : "{" + labels + "}";
+    }
+}

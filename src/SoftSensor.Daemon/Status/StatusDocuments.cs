@@ -1,0 +1,43 @@
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Mqtt;
+using SoftSensor.Daemon.Pipeline;
+
+namespace SoftSensor.Daemon.Status;
+
+/// <summary>The JSON documents of the status API (camelCase; a value that could not be computed is null).</summary>
+internal static class StatusDocuments
+{
+    public sealed record DaemonDoc(string Broker, bool MqttOnline, int MqttConnections, DateTimeOffset Now, IReadOnlyList<ReactorDoc> Reactors);
+
+    public sealed record ReactorDoc(string Id, long Cycle, DateTimeOffset CycleTime, string Quality, DateTimeOffset? SourceTime, IReadOnlyList<EstimateDoc> Estimates, IReadOnlyList<InputDoc> Inputs);
+
+    public sealed record EstimateDoc(string Name, double? Value, string Unit, double? Sigma, string Quality, uint StatusCode);
+
+    public sealed record InputDoc(string Tag, string Role, double? Value, string Unit, DateTimeOffset? SourceTime, double? AgeSeconds, string State, string Quality, uint StatusCode);
+
+    public sealed record TrendDoc(string Reactor, DateTimeOffset? From, DateTimeOffset? To, IReadOnlyDictionary<string, TrendSeries> Series);
+
+    public sealed record TrendSeries(string Unit, IReadOnlyList<long> T, IReadOnlyList<double?> V, IReadOnlyList<int> Q);
+
+    public sealed record AlarmDoc(string Reactor, string AlarmId, DateTimeOffset Time, string State, string Priority, double? Value, string Message);
+
+    public static double? Finite(double v) => double.IsFinite(v) ? v : null;
+
+    public static ReactorDoc Reactor(ReactorSnapshot s) => new(
+        s.Reactor,
+        s.Cycle,
+        s.CycleTime,
+        EstimatePayload.Name(s.Frame?.Quality ?? SampleQuality.Bad),
+        s.Frame?.SourceTime,
+        s.Frame?.Values.Select(v => new EstimateDoc(v.Name, Finite(v.Value), v.Unit, Finite(v.Sigma), EstimatePayload.Name(v.Quality), v.StatusCode)).ToList() ?? [],
+        s.Inputs.Select(i => new InputDoc(
+            i.Tag,
+            i.Role.ToString(),
+            Finite(i.Value),
+            SignalRoles.UnitOf(i.Role),
+            i.SourceTime == default ? null : i.SourceTime,
+            Finite(i.AgeSeconds),
+            i.State.ToString().ToLowerInvariant(),
+            EstimatePayload.Name(i.Quality),
+            i.StatusCode)).ToList());
+}

@@ -1,0 +1,13 @@
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Sinks;
+
+namespace SoftSensor.Daemon.Store;
+
+/// <summary>Writes every frame to the embedded store. Registered first, so a frame is durable before any network sink sees it.</summary>
+internal sealed class SqliteEstimateSink(SqliteStore store) : IEstimateSink
+{
+    public string Name => "store";
+
+    public async ValueTask WriteAsync(EstimateFrame frame, CancellationToken cancellationToken) =>
+        await store.WriteFrameAsync(frame, cancellationToken);
+}

@@ -1,0 +1,182 @@
+using Microsoft.Data.Sqlite;
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Pipeline;
+
+namespace SoftSensor.Daemon.Store;
+
+/// <summary>The store's read side: each query on its own pooled connection (WAL readers do not block the writer).</summary>
+internal sealed partial class SqliteStore
+{
+    /// <summary>
+    /// Estimates of a reactor in [<paramref name="from"/>, <paramref name="to"/>], oldest first, at most
+    /// <paramref name="limit"/> rows; <paramref name="name"/> null for every name.
+    /// </summary>
+    public ValueTask<IReadOnlyList<StoredEstimate>> QueryEstimatesAsync(string reactor, string? name, DateTimeOffset from, DateTimeOffset to, int limit, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = """
+            SELECT frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code FROM estimates
+            WHERE reactor = $r AND ($n IS NULL OR name = $n) AND time_ms BETWEEN $a AND $b
+            ORDER BY time_ms, frame_id LIMIT $l
+            """;
+        c.Parameters.AddWithValue("$r", reactor);
+        c.Parameters.AddWithValue("$n", (object?)name ?? DBNull.Value);
+        c.Parameters.AddWithValue("$a", from.ToUnixTimeMilliseconds());
+        c.Parameters.AddWithValue("$b", to.ToUnixTimeMilliseconds());
+        c.Parameters.AddWithValue("$l", limit);
+        var list = new List<StoredEstimate>();
+        using var r = c.ExecuteReader();
+        while (r.Read())
+        {
+            list.Add(ReadEstimate(r));
+        }
+
+        return ValueTask.FromResult<IReadOnlyList<StoredEstimate>>(list);
+    }
+
+    /// <summary>Source time of the newest frame of a reactor, or null.</summary>
+    public ValueTask<DateTimeOffset?> LatestFrameTimeAsync(string reactor, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = "SELECT max(time_ms) FROM frames WHERE reactor = $r";
+        c.Parameters.AddWithValue("$r", reactor);
+        object? v = c.ExecuteScalar();
+        DateTimeOffset? t = v is long ms ? DateTimeOffset.FromUnixTimeMilliseconds(ms) : null;
+        return ValueTask.FromResult(t);
+    }
+
+    /// <summary>Frames with id above <paramref name="afterId"/>, oldest first, at most <paramref name="limit"/> (the outbox read).</summary>
+    public ValueTask<IReadOnlyList<StoredFrame>> FramesAfterAsync(long afterId, int limit, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality)>();
+        using (var c = conn.CreateCommand())
+        {
+            c.CommandText = "SELECT id, reactor, batch, time_ms, quality FROM frames WHERE id > $a ORDER BY id LIMIT $l";
+            c.Parameters.AddWithValue("$a", afterId);
+            c.Parameters.AddWithValue("$l", limit);
+            using var r = c.ExecuteReader();
+            while (r.Read())
+            {
+                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4)));
+            }
+        }
+
+        var values = new Dictionary<long, List<EstimateValue>>();
+        if (frames.Count > 0)
+        {
+            using var c = conn.CreateCommand();
+            c.CommandText = "SELECT frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code FROM estimates WHERE frame_id BETWEEN $a AND $b ORDER BY rowid";
+            c.Parameters.AddWithValue("$a", frames[0].Id);
+            c.Parameters.AddWithValue("$b", frames[^1].Id);
+            using var r = c.ExecuteReader();
+            while (r.Read())
+            {
+                var e = ReadEstimate(r);
+                if (!values.TryGetValue(e.FrameId, out var list))
+                {
+                    values[e.FrameId] = list = [];
+                }
+
+                list.Add(new EstimateValue(e.Name, e.Value, e.Unit, e.Sigma, e.Quality, e.StatusCode));
+            }
+        }
+
+        IReadOnlyList<StoredFrame> result = frames.Select(f => new StoredFrame(
+            f.Id,
+            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : [])))
+            .ToList();
+        return ValueTask.FromResult(result);
+    }
+
+    /// <summary>The newest frame id <paramref name="target"/> acknowledged (0 when none).</summary>
+    public ValueTask<long> OutboxCursorAsync(string target, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = "SELECT frame_id FROM outbox_cursors WHERE target = $t";
+        c.Parameters.AddWithValue("$t", target);
+        return ValueTask.FromResult(c.ExecuteScalar() is long id ? id : 0L);
+    }
+
+    /// <summary>Alarm changes of a reactor in a time range, oldest first.</summary>
+    public ValueTask<IReadOnlyList<StoredAlarm>> QueryAlarmsAsync(string reactor, DateTimeOffset from, DateTimeOffset to, int limit, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = """
+            SELECT reactor, alarm_id, time_ms, state, priority, active, value, message FROM alarms
+            WHERE reactor = $r AND time_ms BETWEEN $a AND $b ORDER BY time_ms, id LIMIT $l
+            """;
+        c.Parameters.AddWithValue("$r", reactor);
+        c.Parameters.AddWithValue("$a", from.ToUnixTimeMilliseconds());
+        c.Parameters.AddWithValue("$b", to.ToUnixTimeMilliseconds());
+        c.Parameters.AddWithValue("$l", limit);
+        return ValueTask.FromResult(ReadAlarms(c));
+    }
+
+    /// <summary>The active alarms (newest change per alarm with active set), of every reactor.</summary>
+    public ValueTask<IReadOnlyList<StoredAlarm>> ActiveAlarmsAsync(CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = """
+            SELECT a.reactor, a.alarm_id, a.time_ms, a.state, a.priority, a.active, a.value, a.message FROM alarms a
+            JOIN (SELECT reactor, alarm_id, max(id) AS id FROM alarms GROUP BY reactor, alarm_id) n ON n.id = a.id
+            WHERE a.active = 1 ORDER BY a.reactor, a.time_ms
+            """;
+        return ValueTask.FromResult(ReadAlarms(c));
+    }
+
+    /// <inheritdoc/>
+    public ValueTask<Checkpoint?> LatestCheckpointAsync(string reactor, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = "SELECT cycle, time_ms, state FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1";
+        c.Parameters.AddWithValue("$r", reactor);
+        using var r = c.ExecuteReader();
+        Checkpoint? cp = r.Read() ? new Checkpoint(reactor, r.GetInt64(0), DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(1)), r.GetString(2)) : null;
+        return ValueTask.FromResult(cp);
+    }
+
+    private static StoredEstimate ReadEstimate(SqliteDataReader r) => new(
+        r.GetInt64(0),
+        r.GetString(1),
+        r.GetString(2),
+        DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(3)),
+        r.IsDBNull(4) ? double.NaN : r.GetDouble(4),
+        r.IsDBNull(5) ? double.NaN : r.GetDouble(5),
+        r.GetString(6),
+        (SampleQuality)r.GetInt32(7),
+        (uint)r.GetInt64(8));
+
+    private static IReadOnlyList<StoredAlarm> ReadAlarms(SqliteCommand c)
+    {
+        var list = new List<StoredAlarm>();
+        using var r = c.ExecuteReader();
+        while (r.Read())
+        {
+            list.Add(new StoredAlarm(
+                r.GetString(0),
+                r.GetString(1),
+                DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(2)),
+                r.GetString(3),
+                r.GetString(4),
+                r.GetInt32(5) != 0,
+                r.IsDBNull(6) ? double.NaN : r.GetDouble(6),
+                r.GetString(7)));
+        }
+
+        return list;
+    }
+}

@@ -1,0 +1,179 @@
+using Microsoft.Data.Sqlite;
+using Microsoft.Extensions.Options;
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Pipeline;
+
+namespace SoftSensor.Daemon.Store;
+
+/// <summary>
+/// The embedded store (SQLite in WAL mode, <see cref="StoreSchema"/>): every estimate frame and alarm
+/// change, queryable by reactor, name and time range; estimator checkpoints; and the durable outbox
+/// for forwarders (a frame is stored before any network sink sees it; a forwarder reads
+/// <see cref="FramesAfterAsync"/> from its cursor and advances the cursor only once its target
+/// acknowledged). Writes go through one connection, one at a time; reads open their own pooled
+/// connections and run beside the writer (WAL). Thread-safe.
+/// </summary>
+internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
+{
+    private readonly SemaphoreSlim _writeGate = new(1, 1);
+    private readonly SqliteConnection _writer;
+    private readonly string _connectionString;
+    private readonly TimeProvider _time;
+
+    public SqliteStore(IOptions<SoftSensorOptions> options, TimeProvider time)
+        : this(options.Value.Store.Path, time)
+    {
+    }
+
+    public SqliteStore(string path, TimeProvider time)
+    {
+        _time = time;
+        string full = System.IO.Path.GetFullPath(path);
+        Directory.CreateDirectory(System.IO.Path.GetDirectoryName(full)!);
+        Path = full;
+        _connectionString = new SqliteConnectionStringBuilder { DataSource = full, Pooling = true }.ToString();
+        _writer = new SqliteConnection(_connectionString);
+        _writer.Open();
+        Execute(_writer, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON; PRAGMA busy_timeout=5000;");
+        Execute(_writer, StoreSchema.Create + $"PRAGMA user_version={StoreSchema.Version};");
+    }
+
+    /// <summary>Full path of the database file.</summary>
+    public string Path { get; }
+
+    /// <summary>Stores a frame with all its values in one transaction; returns the frame's id.</summary>
+    public async ValueTask<long> WriteFrameAsync(EstimateFrame frame, CancellationToken cancellationToken)
+    {
+        await _writeGate.WaitAsync(cancellationToken);
+        try
+        {
+            using var tx = _writer.BeginTransaction();
+            long ms = frame.SourceTime.ToUnixTimeMilliseconds();
+            using var f = _writer.CreateCommand();
+            f.Transaction = tx;
+            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality) VALUES ($r, $b, $t, $q) RETURNING id";
+            f.Parameters.AddWithValue("$r", frame.Reactor);
+            f.Parameters.AddWithValue("$b", frame.BatchId);
+            f.Parameters.AddWithValue("$t", ms);
+            f.Parameters.AddWithValue("$q", (int)frame.Quality);
+            long id = (long)f.ExecuteScalar()!;
+            using var e = _writer.CreateCommand();
+            e.Transaction = tx;
+            e.CommandText = "INSERT INTO estimates (frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code) VALUES ($f, $r, $n, $t, $v, $s, $u, $q, $c)";
+            var pf = e.Parameters.AddWithValue("$f", id);
+            e.Parameters.AddWithValue("$r", frame.Reactor);
+            var pn = e.Parameters.Add("$n", SqliteType.Text);
+            e.Parameters.AddWithValue("$t", ms);
+            var pv = e.Parameters.Add("$v", SqliteType.Real);
+            var ps = e.Parameters.Add("$s", SqliteType.Real);
+            var pu = e.Parameters.Add("$u", SqliteType.Text);
+            var pq = e.Parameters.Add("$q", SqliteType.Integer);
+            var pc = e.Parameters.Add("$c", SqliteType.Integer);
+            e.Prepare();
+            foreach (var v in frame.Values)
+            {
+                pn.Value = v.Name;
+                pv.Value = double.IsFinite(v.Value) ? v.Value : DBNull.Value;
+                ps.Value = double.IsFinite(v.Sigma) ? v.Sigma : DBNull.Value;
+                pu.Value = v.Unit;
+                pq.Value = (int)v.Quality;
+                pc.Value = (long)v.StatusCode;
+                e.ExecuteNonQuery();
+            }
+
+            tx.Commit();
+            return id;
+        }
+        finally
+        {
+            _writeGate.Release();
+        }
+    }
+
+    /// <summary>Stores an alarm state change.</summary>
+    public async ValueTask WriteAlarmAsync(StoredAlarm alarm, CancellationToken cancellationToken)
+    {
+        await _writeGate.WaitAsync(cancellationToken);
+        try
+        {
+            using var c = _writer.CreateCommand();
+            c.CommandText = "INSERT INTO alarms (reactor, alarm_id, time_ms, state, priority, active, value, message) VALUES ($r, $a, $t, $s, $p, $x, $v, $m)";
+            c.Parameters.AddWithValue("$r", alarm.Reactor);
+            c.Parameters.AddWithValue("$a", alarm.AlarmId);
+            c.Parameters.AddWithValue("$t", alarm.Time.ToUnixTimeMilliseconds());
+            c.Parameters.AddWithValue("$s", alarm.State);
+            c.Parameters.AddWithValue("$p", alarm.Priority);
+            c.Parameters.AddWithValue("$x", alarm.Active ? 1 : 0);
+            c.Parameters.AddWithValue("$v", double.IsFinite(alarm.Value) ? alarm.Value : DBNull.Value);
+            c.Parameters.AddWithValue("$m", alarm.Message);
+            c.ExecuteNonQuery();
+        }
+        finally
+        {
+            _writeGate.Release();
+        }
+    }
+
+    /// <inheritdoc/>
+    public async ValueTask WriteCheckpointAsync(Checkpoint checkpoint, CancellationToken cancellationToken)
+    {
+        await _writeGate.WaitAsync(cancellationToken);
+        try
+        {
+            using var c = _writer.CreateCommand();
+            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state) VALUES ($r, $c, $t, $s)";
+            c.Parameters.AddWithValue("$r", checkpoint.Reactor);
+            c.Parameters.AddWithValue("$c", checkpoint.Cycle);
+            c.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
+            c.Parameters.AddWithValue("$s", checkpoint.State);
+            c.ExecuteNonQuery();
+        }
+        finally
+        {
+            _writeGate.Release();
+        }
+    }
+
+    /// <summary>Records that <paramref name="target"/> acknowledged every frame up to <paramref name="frameId"/> (never moves back).</summary>
+    public async ValueTask AdvanceOutboxAsync(string target, long frameId, CancellationToken cancellationToken)
+    {
+        await _writeGate.WaitAsync(cancellationToken);
+        try
+        {
+            using var c = _writer.CreateCommand();
+            c.CommandText = """
+                INSERT INTO outbox_cursors (target, frame_id, updated_ms) VALUES ($t, $f, $u)
+                ON CONFLICT (target) DO UPDATE SET frame_id = max(frame_id, excluded.frame_id), updated_ms = excluded.updated_ms
+                """;
+            c.Parameters.AddWithValue("$t", target);
+            c.Parameters.AddWithValue("$f", frameId);
+            c.Parameters.AddWithValue("$u", _time.GetUtcNow().ToUnixTimeMilliseconds());
+            c.ExecuteNonQuery();
+        }
+        finally
+        {
+            _writeGate.Release();
+        }
+    }
+
+    public void Dispose()
+    {
+        _writer.Dispose();
+        _writeGate.Dispose();
+    }
+
+    private static void Execute(SqliteConnection connection, string sql)
+    {
+        using var c = connection.CreateCommand();
+        c.CommandText = sql;
+        c.ExecuteNonQuery();
+    }
+
+    private SqliteConnection OpenReader()
+    {
+        var c = new SqliteConnection(_connectionString);
+        c.Open();
+        return c;
+    }
+}

@@ -1,0 +1,49 @@
+using SoftSensor.Core.Estimation;
+using SoftSensor.Core.Gas;
+using SoftSensor.Core.Signals;
+using SoftSensor.Core.Stoichiometry;
+
+namespace SoftSensor.Benchmarks.Cycle;
+
+/// <summary>The glycerol model and cycle settings of the shipped replay configuration, for the benchmarks.</summary>
+internal static class GlycerolCycleFixture
+{
+    public static string RepoRoot()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "SoftSensor.sln")))
+        {
+            dir = dir.Parent;
+        }
+
+        return dir?.FullName ?? throw new InvalidOperationException("SoftSensor.sln not found above " + AppContext.BaseDirectory);
+    }
+
+    public static StoichiometricModel Model() =>
+        ModelReader.Parse(File.ReadAllText(Path.Combine(RepoRoot(), "config", "models", "balance-bacterium-glycerol.json")));
+
+    public static CycleSettings Settings() => new()
+    {
+        Gas = AlignedGasBalanceSettings.Default with
+        {
+            Balance = GasBalanceSettings.Default with { Accuracy = new MeasurementAccuracy(0.02, 0.02, 1.0), MinAerationNlPerMin = 0.5 },
+            Lines = InstalledGasLines.Air,
+        },
+        Estimator = new EstimatorSettings { InitialBiomassGPerL = 0.3, InitialVolumeL = 30, FeedSubstrateGPerL = 600 },
+        BaseAmmoniaMolPerL = 13.4,
+    };
+
+    /// <summary>One cycle's inputs of a respiring culture; <paramref name="co2Factor"/> scales the CO2 reading (1.05: a 5 % analyser error).</summary>
+    public static void Fill(AlignedInputs a, DateTimeOffset t, double co2Factor)
+    {
+        a.Time = t;
+        a.Set(SignalRole.AirFlowNlPerMin, 30, SampleQuality.Good, t);
+        a.Set(SignalRole.OutletO2Percent, 19.2, SampleQuality.Good, t);
+        a.Set(SignalRole.OutletCo2Percent, 1.42 * co2Factor, SampleQuality.Good, t);
+        a.Set(SignalRole.PressureKPa, 150, SampleQuality.Good, t);
+        a.Set(SignalRole.TemperatureC, 37, SampleQuality.Good, t);
+        a.Set(SignalRole.WeightKg, 33, SampleQuality.Good, t);
+        a.Set(SignalRole.FeedRateLPerH, 0.12, SampleQuality.Good, t);
+        a.Set(SignalRole.BaseRateLPerH, 0.0068, SampleQuality.Good, t);
+    }
+}

@@ -1,0 +1,65 @@
+using Microsoft.Extensions.Configuration;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Tests.Fixtures;
+
+namespace SoftSensor.Daemon.Tests.Configuration;
+
+public class SoftSensorOptionsValidatorTests
+{
+    private static SoftSensorOptions Bind(Dictionary<string, string?> keys)
+    {
+        var o = new SoftSensorOptions();
+        new ConfigurationBuilder().AddInMemoryCollection(keys).Build().Bind(o);
+        return o;
+    }
+
+    [Fact]
+    public void Validate_hand_case_configuration_succeeds()
+    {
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(TestConfigs.HandCase(1883, "t")));
+        Assert.True(result.Succeeded, result.FailureMessage);
+    }
+
+    [Fact]
+    public void Validate_several_errors_reports_all_in_one_message_naming_each_key()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["site"] = "Pilot Plant";
+        keys["mqtt:port"] = "70000";
+        keys["reactors:0:cyclePeriod"] = "00:00:00.01";
+        keys["reactors:0:tags:fic101:role"] = "AirFlow";
+        keys["reactors:0:tags:qi202:topic"] = "plant/#";
+        keys["reactors:0:gas:analyserBasis"] = "humid";
+        keys["status:url"] = "ftp://x";
+
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+
+        Assert.False(result.Succeeded);
+        Assert.Equal(
+            "site is 'Pilot Plant' (expected lowercase letters, digits, '-' or '_'); "
+            + "reactors:0:cyclePeriod is 00:00:00.0100000 (expected between 00:00:00.1 and 01:00:00); "
+            + "reactors:0:gas:analyserBasis is 'humid' (expected dry or wet); "
+            + "reactors:0:tags:fic101:role is 'AirFlow' (expected one of AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin, CarbonDioxideFlowNlPerMin, InletO2Percent, InletCo2Percent, OutletO2Percent, OutletCo2Percent, PressureKPa, TemperatureC, LiquidVolumeL, WeightKg, FeedRateLPerH, BaseRateLPerH, DissolvedOxygenPercent, Ph, AnalyserTemperatureC, AnalyserCalibrating); "
+            + "reactors:0:tags:qi202:topic is 'plant/#' (expected an exact MQTT topic without wildcards); "
+            + "reactors:0:tags has no gas-line flow (expected a tag with role AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin or CarbonDioxideFlowNlPerMin); "
+            + "mqtt:port is 70000 (expected 1 to 65535); "
+            + "status:url is 'ftp://x' (expected an http:// URL such as http://127.0.0.1:8470)",
+            result.FailureMessage);
+    }
+
+    [Fact]
+    public void Validate_no_reactors_names_the_key()
+    {
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(new() { ["site"] = "s", ["area"] = "a" }));
+        Assert.Equal("reactors is empty (expected at least one reactor)", result.FailureMessage);
+    }
+
+    [Fact]
+    public void Validate_measured_inlet_without_inlet_tags_names_the_key()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["reactors:0:gas:inlet"] = "measured";
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+        Assert.Equal("reactors:0:gas:inlet is 'measured' (expected tags with roles InletO2Percent and InletCo2Percent)", result.FailureMessage);
+    }
+}
