@@ -121,11 +121,14 @@ public sealed class VirtualReactor
 
     internal double DoCalibrationMmolPerL => _doCalibrationMmolPerL;
 
+    /// <summary>The base pump's true flow now, L/h (without building a whole truth record).</summary>
+    internal double TrueBaseLPerH() => _model.Evaluate(ElapsedH, _y, _scratch).BaseLPerH;
+
     /// <summary>The truth at this instant.</summary>
     public ReactorTruth Truth()
     {
         var snap = _model.Evaluate(ElapsedH, _y, _scratch);
-        return TruthBuilder.Build(this, snap, _y, _model, CarbonRecovery(), InertImbalance(), _sampledL, _faults.AnyActive(ElapsedH));
+        return TruthBuilder.Build(this, snap, _y, CarbonRecovery(), InertImbalance(), _sampledL, _faults.AnyActive(ElapsedH));
     }
 
     private void StepOnce()

@@ -28,7 +28,8 @@ async function main() {
     securityPolicies: [opcua.SecurityPolicy.None],
     allowAnonymous: true,
     defaultSecureTokenLifetime: tokenLifetimeMs,
-    maxConnectionsPerEndpoint: 50,
+    maxConnectionsPerEndpoint: 100,
+    serverCapabilities: { maxSessions: 100 },
     userManager: {
       isValidUser: (name, pass) => user !== "" && name === user && pass === password,
     },

@@ -25,9 +25,7 @@ internal sealed class OffGasCycle : IReactorCycle
         lines |= roles.Contains(SignalRole.OxygenFlowNlPerMin) ? InstalledGasLines.Oxygen : 0;
         lines |= roles.Contains(SignalRole.NitrogenFlowNlPerMin) ? InstalledGasLines.Nitrogen : 0;
         lines |= roles.Contains(SignalRole.CarbonDioxideFlowNlPerMin) ? InstalledGasLines.CarbonDioxide : 0;
-        var inlet = _gas.Inlet == "lines"
-            ? InletComposition.FromGasLines(_gas.AirCo2Percent / 100.0)
-            : InletComposition.Measured(double.NaN, double.NaN);
+        var inlet = _gas.Inlet == "lines" ? InletSource.GasLines : InletSource.Measured;
         var balance = GasBalanceSettings.Default with
         {
             Reference = new ReferenceConditions(_gas.MfcReferenceTemperatureK, _gas.MfcReferencePressureKPa),
@@ -37,7 +35,7 @@ internal sealed class OffGasCycle : IReactorCycle
         // Staleness is judged per tag by the signal store (its own max age and dead time); the balance's
         // own age check is set wide enough not to repeat it.
         var maxAge = bindings.Count == 0 ? TimeSpan.FromDays(1) : bindings.Max(b => b.MaxAge + b.DeadTime) + TimeSpan.FromDays(1);
-        _settings = new AlignedGasBalanceSettings(balance, lines, inlet, _gas.AnalyserBasis == "wet" ? AnalyserBasis.Saturated : AnalyserBasis.Dry, _gas.AnalyserPressureKPa, maxAge);
+        _settings = new AlignedGasBalanceSettings(balance, lines, inlet, _gas.AirCo2Percent / 100.0, _gas.AnalyserBasis == "wet" ? AnalyserBasis.Saturated : AnalyserBasis.Dry, _gas.AnalyserPressureKPa, maxAge);
         _fixedVolumeL = roles.Contains(SignalRole.LiquidVolumeL) ? double.NaN : _gas.LiquidVolumeL;
         _used = new bool[SignalRoles.Count];
         foreach (var role in UsedRoles(lines, _gas))

@@ -43,8 +43,7 @@ internal static class TagReader
 
         lastFeedReading = feed;
         values[T.FeedRate] = feed;
-        var truth = reactor.Truth();
-        values[T.BaseRate] = Flow(truth.BaseLPerH * err.BasePumpGain, inst.PumpNoiseLPerH, noise);
+        values[T.BaseRate] = Flow(reactor.TrueBaseLPerH() * err.BasePumpGain, inst.PumpNoiseLPerH, noise);
         values[T.DissolvedOxygen] = Math.Max(0, (y[S.OxygenMmolPerL] / reactor.DoCalibrationMmolPerL * 100.0) + noise.Next(inst.DoNoisePercent));
         values[T.Ph] = spec.Vessel.Ph + noise.Next(inst.PhNoise);
     }

@@ -6,7 +6,7 @@ namespace SoftSensor.Simulation.Vessel;
 internal static class TruthBuilder
 {
     public static ReactorTruth Build(
-        VirtualReactor r, ReactorSnapshot snap, ReadOnlySpan<double> y, ReactorModel model,
+        VirtualReactor r, ReactorSnapshot snap, ReadOnlySpan<double> y,
         double carbonRecovery, (double Imbalance, double In) inert, double sampledL, bool faultActive)
     {
         double v = y[S.VolumeL];

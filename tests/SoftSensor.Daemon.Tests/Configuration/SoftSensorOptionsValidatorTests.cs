@@ -39,7 +39,7 @@ public class SoftSensorOptionsValidatorTests
             "site is 'Pilot Plant' (expected lowercase letters, digits, '-' or '_'); "
             + "reactors:0:cyclePeriod is 00:00:00.0100000 (expected between 00:00:00.1 and 01:00:00); "
             + "reactors:0:gas:analyserBasis is 'humid' (expected dry or wet); "
-            + "reactors:0:tags:fic101:role is 'AirFlow' (expected one of AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin, CarbonDioxideFlowNlPerMin, InletO2Percent, InletCo2Percent, OutletO2Percent, OutletCo2Percent, PressureKPa, TemperatureC, LiquidVolumeL, WeightKg, FeedRateLPerH, BaseRateLPerH, DissolvedOxygenPercent, Ph, AnalyserTemperatureC, AnalyserCalibrating); "
+            + $"reactors:0:tags:fic101:role is 'AirFlow' (expected one of {string.Join(", ", Enum.GetNames<SoftSensor.Core.Signals.SignalRole>())}); "
             + "reactors:0:tags:qi202:topic is 'plant/#' (expected an exact MQTT topic without wildcards); "
             + "reactors:0:tags has no gas-line flow (expected a tag with role AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin or CarbonDioxideFlowNlPerMin); "
             + "mqtt:port is 70000 (expected 1 to 65535); "

@@ -21,12 +21,11 @@ public sealed class PeerFixture : IAsyncLifetime
 
     public Task DisposeAsync() => Server.StopAsync();
 
-    /// <summary>Opens a channel and an anonymous (or given) session on the peer.</summary>
-    public async Task<(UaSecureChannel Channel, UaSession Session)> ConnectAsync(UserIdentity? identity = null, ChannelOptions? channel = null)
+    /// <summary>Opens a channel and an anonymous (or given) session on the peer; disposing closes both.</summary>
+    public async Task<(UaConnection Connection, UaSession Session)> ConnectAsync(UserIdentity? identity = null, ChannelOptions? channel = null)
     {
         var options = new SessionOptions { EndpointUrl = Server.EndpointUrl, Identity = identity ?? UserIdentity.Anonymous, Channel = channel ?? new ChannelOptions() };
-        var ch = await UaSecureChannel.OpenAsync(options.EndpointUrl, options.Channel, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
-        var session = await UaSession.CreateAsync(ch, options, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
-        return (ch, session);
+        var connection = await UaConnection.OpenAsync(options, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
+        return (connection, connection.Session);
     }
 }

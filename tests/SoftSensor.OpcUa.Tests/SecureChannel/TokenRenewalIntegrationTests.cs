@@ -13,8 +13,9 @@ public sealed class TokenRenewalIntegrationTests(PeerFixture peer)
     {
         // The client asks for 3 s; node-opcua grants min(asked, its limit) but at least 2.5 s,
         // so the token is renewed about every 2.25 s on the same channel.
-        var (channel, session) = await peer.ConnectAsync(channel: new ChannelOptions { RequestedLifetime = TimeSpan.FromSeconds(3) });
-        await using var _ = channel;
+        var (connection, session) = await peer.ConnectAsync(channel: new ChannelOptions { RequestedLifetime = TimeSpan.FromSeconds(3) });
+        await using var _ = connection;
+        var channel = connection.Channel;
         uint channelId = channel.Token.ChannelId;
         uint firstToken = channel.Token.TokenId;
         Assert.InRange(channel.Token.RevisedLifetimeMs, 2500u, 3000u);

@@ -23,8 +23,6 @@ public sealed class SessionIntegrationTests(PeerFixture peer)
         // Part 5 §6.3.1: index 0 of the NamespaceArray is always the OPC UA namespace.
         Assert.Equal("http://opcfoundation.org/UA/", session.Namespaces.Uris[0]);
         Assert.NotNull(session.Namespaces.IndexOf(OpcUaPeerServer.NamespaceUri));
-        await session.CloseAsync(true, None);
-        await channel.CloseAsync(None);
     }
 
     [Fact]
