@@ -32,6 +32,24 @@ public readonly record struct AlignedGasBalanceSettings(
     double AnalyserPressureKPa,
     TimeSpan MaxInputAge)
 {
+    /// <summary>
+    /// The same settings with the inlet given as an <see cref="InletComposition"/> (the first shape of
+    /// this record, still used by callers): its source counts, and its air CO2 fraction when the
+    /// inlet is the gas-line mix; a measured inlet's values come from the roles.
+    /// </summary>
+    public AlignedGasBalanceSettings(
+        GasBalanceSettings balance, InstalledGasLines lines, InletComposition inlet, AnalyserBasis analyserBasis, double analyserPressureKPa, TimeSpan maxInputAge)
+        : this(
+            balance,
+            lines,
+            inlet.Source,
+            inlet.Source == InletSource.GasLines ? inlet.AirCo2Fraction : DryAir.DefaultCo2Fraction,
+            analyserBasis,
+            analyserPressureKPa,
+            maxInputAge)
+    {
+    }
+
     /// <summary>An air line, inlet mixed from the lines, dry analyser, inputs at most 60 s old.</summary>
     public static AlignedGasBalanceSettings Default { get; } = new(
         GasBalanceSettings.Default, InstalledGasLines.Air, InletSource.GasLines, DryAir.DefaultCo2Fraction, AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));

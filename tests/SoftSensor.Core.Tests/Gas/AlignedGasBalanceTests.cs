@@ -78,6 +78,16 @@ public class AlignedGasBalanceTests
     }
 
     [Fact]
+    public void Constructor_with_inlet_composition_keeps_source_and_air_CO2()
+    {
+        var lines = new AlignedGasBalanceSettings(GasBalanceSettings.Default, InstalledGasLines.Air, InletComposition.FromGasLines(0.0005), AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));
+        var measured = new AlignedGasBalanceSettings(GasBalanceSettings.Default, InstalledGasLines.Air, InletComposition.Measured(double.NaN, double.NaN), AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(60));
+        Assert.Equal((InletSource.GasLines, 0.0005), (lines.Inlet, lines.AirCo2Fraction));
+        Assert.Equal(InletSource.Measured, measured.Inlet);
+        Assert.Equal(38.629, GasBalance.Compute(HandCase(), measured).OurMmolPerLh, 0.0005);
+    }
+
+    [Fact]
     public void Compute_aligned_installed_line_missing_is_flagged()
     {
         var r = GasBalance.Compute(HandCase(), Measured with { Lines = InstalledGasLines.Air | InstalledGasLines.Oxygen });
