@@ -1,3 +1,5 @@
+using SoftSensor.Core.Stoichiometry;
+
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
@@ -7,7 +9,7 @@ namespace SoftSensor.Core.Flux;
 /// standard deviations sigma_i, the weighted least-squares estimate is
 ///   r_X = sum(a_i (y_i - b_i m X) / sigma_i^2) / sum(a_i^2 / sigma_i^2),  var(r_X) = 1 / sum(a_i^2 / sigma_i^2),
 /// and the gaps y_i - q_i show a drift of P/O or maintenance, or a change of metabolism.
-/// Set up once; <see cref="Estimate"/> allocates nothing.
+/// Set up once; <see cref="Estimate"/> allocates nothing and is safe to call from several threads.
 /// </summary>
 public sealed class FluxEstimator
 {
@@ -69,8 +71,8 @@ public sealed class FluxEstimator
     /// <summary>An estimator for the off-gas rates: the compounds with roles oxygen and carbonDioxide, in that order.</summary>
     public static FluxEstimator ForGas(FluxNetwork network)
     {
-        var o2 = network.Model.Compounds.FirstOrDefault(c => c.Role == "oxygen") ?? throw new ArgumentException($"model '{network.Model.Name}' has no compound with role oxygen", nameof(network));
-        var co2 = network.Model.Compounds.FirstOrDefault(c => c.Role == "carbonDioxide") ?? throw new ArgumentException($"model '{network.Model.Name}' has no compound with role carbonDioxide", nameof(network));
+        var o2 = network.Model.Compounds.FirstOrDefault(c => c.Role == CompoundRole.Oxygen) ?? throw new ArgumentException($"model '{network.Model.Name}' has no compound with role oxygen", nameof(network));
+        var co2 = network.Model.Compounds.FirstOrDefault(c => c.Role == CompoundRole.CarbonDioxide) ?? throw new ArgumentException($"model '{network.Model.Name}' has no compound with role carbonDioxide", nameof(network));
         return new FluxEstimator(network, [o2.Id, co2.Id]);
     }
 

@@ -1,20 +1,28 @@
+using SoftSensor.Core.Stoichiometry;
+
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
 /// A metabolic network read from a model file: the exchange compounds (shared with the elemental
 /// balance), the balanced metabolites and cofactors, the reactions, their parameters, the carbon
-/// splits and the maintenance demand (METHODS.md section 3). Immutable; compile it once with
+/// splits and the maintenance demand (METHODS.md section 3). The compounds and balances are the
+/// elemental-balance model of the same file (<see cref="ModelReader"/>). Immutable; compile it once with
 /// <see cref="FluxNetwork.Compile"/> and solve many times.
 /// </summary>
 public sealed record FluxModel(
-    string Name,
-    IReadOnlyList<FluxCompound> Compounds,
+    StoichiometricModel Stoichiometry,
     IReadOnlyList<Metabolite> Metabolites,
     IReadOnlyList<Reaction> Reactions,
     IReadOnlyList<FluxParameter> Parameters,
     IReadOnlyList<FluxSplit> Splits,
     MaintenanceDemand? Maintenance)
 {
+    /// <summary>Name of the model.</summary>
+    public string Name => Stoichiometry.Name;
+
+    /// <summary>The exchange compounds, read by the elemental-balance model reader (file order).</summary>
+    public IReadOnlyList<Compound> Compounds => Stoichiometry.Compounds;
+
     /// <summary>Id of the biomass compound in shipped models.</summary>
     public const string BiomassId = "biomass";
 
@@ -22,7 +30,7 @@ public sealed record FluxModel(
     public static FluxModel Load(string json) => FluxModelReader.Parse(json);
 
     /// <summary>The biomass compound (role biomass), or null.</summary>
-    public FluxCompound? Biomass => Compounds.FirstOrDefault(c => c.Role == "biomass");
+    public Compound? Biomass => Compounds.FirstOrDefault(c => c.Role == CompoundRole.Biomass);
 
     /// <summary>Index of a compound by id, or -1.</summary>
     public int CompoundIndex(string id)

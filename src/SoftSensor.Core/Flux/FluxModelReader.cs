@@ -1,23 +1,32 @@
 using System.Globalization;
 using System.Text.Json;
 using SoftSensor.Core.Chemistry;
+using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
 /// Reads a flux model from JSON. The file is an elemental-balance model ("name", "compounds",
-/// "balances") extended by the keys "metabolites", "reactions", "parameters", "splits" and
+/// "balances", read by <see cref="ModelReader"/>, so the same file serves both) extended by the keys "metabolites", "reactions", "parameters", "splits" and
 /// "maintenance" (README, flux section); other top-level keys are left to their readers.
 /// Comments and trailing commas are allowed. Every error names the field.
 /// </summary>
 internal static class FluxModelReader
 {
     private static readonly JsonDocumentOptions Options = new() { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true };
-    private static readonly string[] CompoundKeys = ["formula", "role", "molarMass", "ashFraction"];
-    private static readonly string[] Roles = ["substrate", "product", "biomass", "oxygen", "carbonDioxide", "water", "nitrogenSource", "candidate"];
 
     public static FluxModel Parse(string json)
     {
+        StoichiometricModel stoichiometry;
+        try
+        {
+            stoichiometry = ModelReader.Parse(json);
+        }
+        catch (ModelFormatException ex)
+        {
+            throw new FluxModelException(ex.Message, ex);
+        }
+
         JsonDocument doc;
         try
         {
@@ -37,13 +46,12 @@ internal static class FluxModelReader
             }
 
             var top = JsonFields.Unique(root, "model");
-            string name = top.TryGetValue("name", out var n) ? JsonFields.String(n, "name") : "unnamed model";
-            var compounds = ReadCompounds(Required(top, "compounds", "an object of compounds keyed by id"));
+            var compounds = stoichiometry.Compounds;
             var metabolites = top.TryGetValue("metabolites", out var m) ? ReadMetabolites(m, compounds) : [];
             var parameters = top.TryGetValue("parameters", out var p) ? ReadParameters(p) : [];
             var reactions = ReadReactions(Required(top, "reactions", "an object of reaction equations keyed by id"), compounds, metabolites, parameters);
             var splits = top.TryGetValue("splits", out var s) ? ReadSplits(s, reactions) : [];
-            var model = new FluxModel(name, compounds, metabolites, reactions, parameters, splits, null);
+            var model = new FluxModel(stoichiometry, metabolites, reactions, parameters, splits, null);
             return top.TryGetValue("maintenance", out var mt) ? model with { Maintenance = MaintenanceReader.Read(mt, model) } : model;
         }
     }
@@ -51,45 +59,7 @@ internal static class FluxModelReader
     private static JsonElement Required(Dictionary<string, JsonElement> top, string key, string expectation) =>
         top.TryGetValue(key, out var e) ? e : throw new FluxModelException(key, $"missing: a flux model needs {expectation}");
 
-    private static List<FluxCompound> ReadCompounds(JsonElement element)
-    {
-        var list = new List<FluxCompound>();
-        foreach (var (id, value) in JsonFields.Unique(JsonFields.Object(element, "compounds"), "compounds"))
-        {
-            string path = "compounds." + id;
-            if (!(id.Length > 0 && char.IsAsciiLetterLower(id[0]) && id.All(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) || c == '_')))
-            {
-                throw new FluxModelException(path, $"id '{id}' must be lower case: a letter, then letters, digits or '_'");
-            }
-
-            var props = JsonFields.Unique(JsonFields.Object(value, path), path);
-            JsonFields.OnlyKeys(props, path, CompoundKeys);
-            if (!props.TryGetValue("formula", out var f) || f.ValueKind != JsonValueKind.String)
-            {
-                throw new FluxModelException(path + ".formula", "missing or not a string: give the elemental formula, e.g. \"C3H8O3\"");
-            }
-
-            var formula = ParseFormula(f.GetString()!, path + ".formula");
-            string role = props.TryGetValue("role", out var r) ? JsonFields.String(r, path + ".role") : "product";
-            if (Array.IndexOf(Roles, role) < 0)
-            {
-                throw new FluxModelException(path + ".role", $"'{role}' is not a role (allowed: {string.Join(", ", Roles)})");
-            }
-
-            double molarMass = props.TryGetValue("molarMass", out var mm) ? JsonFields.Positive(mm, path + ".molarMass") : formula.MolarMassGPerMol;
-            double ash = props.TryGetValue("ashFraction", out var a) ? JsonFields.Number(a, path + ".ashFraction") : 0;
-            if (!(ash >= 0 && ash < 1) || (ash != 0 && role != "biomass"))
-            {
-                throw new FluxModelException(path + ".ashFraction", $"{ash.ToString(CultureInfo.InvariantCulture)}: only biomass has an ash fraction, in [0, 1)");
-            }
-
-            list.Add(new FluxCompound(id, formula, role, molarMass, ash));
-        }
-
-        return list.Count > 0 ? list : throw new FluxModelException("compounds", "empty: a model needs at least one compound");
-    }
-
-    private static List<Metabolite> ReadMetabolites(JsonElement element, List<FluxCompound> compounds)
+    private static List<Metabolite> ReadMetabolites(JsonElement element, IReadOnlyList<Compound> compounds)
     {
         var list = new List<Metabolite>();
         foreach (var (id, value) in JsonFields.Unique(JsonFields.Object(element, "metabolites"), "metabolites"))
@@ -145,7 +115,7 @@ internal static class FluxModelReader
         return list;
     }
 
-    private static List<Reaction> ReadReactions(JsonElement element, List<FluxCompound> compounds, List<Metabolite> metabolites, List<FluxParameter> parameters)
+    private static List<Reaction> ReadReactions(JsonElement element, IReadOnlyList<Compound> compounds, List<Metabolite> metabolites, List<FluxParameter> parameters)
     {
         var species = new HashSet<string>(compounds.Select(c => c.Id).Concat(metabolites.Select(m => m.Id)), StringComparer.Ordinal);
         bool TryParameter(string name, out double value)

@@ -23,7 +23,7 @@ public sealed class FluxNetwork
                 int j = model.CompoundIndex(t.Species);
                 if (j >= 0)
                 {
-                    Exchange[j, k] += t.Coefficient * model.Compounds[j].RateUnitsPerFormulaUnit;
+                    Exchange[j, k] += t.Coefficient * model.Compounds[j].RateUnitsPerFormulaUnit();
                 }
                 else
                 {
@@ -62,7 +62,7 @@ public sealed class FluxNetwork
         for (int j = 0; j < nc; j++)
         {
             var perUnit = model.Compounds[j].Formula;
-            double units = model.Compounds[j].RateUnitsPerFormulaUnit;
+            double units = model.Compounds[j].RateUnitsPerFormulaUnit();
             for (int e = 0; e < BalancedElements.Count; e++)
             {
                 ElementMatrix[e, j] = perUnit[BalancedElements[e]] / units;

@@ -7,7 +7,8 @@ namespace SoftSensor.Core.Flux;
 /// The constraint matrix is decomposed once here (SVD); each <see cref="Solve(ReadOnlySpan{double}, double, FluxSolution)"/>
 /// is then a product with the pseudo-inverse into preallocated vectors. Fluxes whose unit vector is
 /// not in the row space of the constraints are undetermined (Klamt, Schuster &amp; Gilles 2002,
-/// Biotechnol. Bioeng. 77, calculability); they are listed, never an exception.
+/// Biotechnol. Bioeng. 77, calculability); they are listed, never an exception. Not thread-safe:
+/// a solver owns its scratch vector; use one per pipeline.
 /// </summary>
 public sealed class FluxSolver
 {

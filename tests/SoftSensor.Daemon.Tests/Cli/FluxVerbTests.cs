@@ -49,6 +49,12 @@ public sealed class FluxVerbTests : IDisposable
         {
             Assert.InRange(c.Value.GetDouble(), -1e-9, 1e-9);
         }
+
+        // Through the elemental-balance engine with the file's balances (C, gamma, N): 3 dof, h about 0.
+        var test = root.GetProperty("balanceTest");
+        Assert.True(test.GetProperty("consistent").GetBoolean());
+        Assert.Equal(3, test.GetProperty("dof").GetInt32());
+        Assert.True(test.GetProperty("h").GetDouble() < 1e-12);
     }
 
     [Fact]

@@ -5,8 +5,8 @@ namespace SoftSensor.Daemon.Cli.Flux;
 
 /// <summary>
 /// Runs the flux verb: reads the model, checks the options, solves, prints. Exit codes: 0 solved
-/// (possibly with undetermined fluxes, listed); 1 the network is not elementally balanced or the
-/// basis values contradict it (the output says which); 2 bad input (one line on stderr).
+/// (possibly with undetermined fluxes, listed); 1 the network is not elementally balanced, its
+/// rates fail the elemental-balance test, or the basis values contradict it (the output says which); 2 bad input (one line on stderr).
 /// </summary>
 internal static class FluxCommand
 {
@@ -74,7 +74,9 @@ internal static class FluxCommand
             FluxText.Write(output, report);
         }
 
-        return report.Imbalances.Count > 0 || solution.Status == FluxSolveStatus.Inconsistent ? ExitCodes.Failure : ExitCodes.Ok;
+        bool failed = report.Imbalances.Count > 0 || solution.Status == FluxSolveStatus.Inconsistent
+            || (solution.Status == FluxSolveStatus.Determined && !report.BalanceTest.Consistent);
+        return failed ? ExitCodes.Failure : ExitCodes.Ok;
     }
 
     private static bool TryParseBasis(string token, FluxModel model, out string? id, out double value, out string? problem)

@@ -1,9 +1,13 @@
 using SoftSensor.Core.Flux;
+using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Daemon.Cli.Flux;
 
 /// <summary>One imbalanced reaction in the report.</summary>
 internal sealed record FluxImbalanceRow(string Reaction, string Element, double Excess);
+
+/// <summary>The predicted rates through the elemental-balance engine: its χ² test over the model's balances.</summary>
+internal sealed record FluxBalanceTest(IReadOnlyList<string> Balances, string Status, double? H, int Dof, double? Critical, bool Consistent);
 
 /// <summary>What the flux verb prints (the JSON document; the text output shows the same).</summary>
 internal sealed record FluxReport(
@@ -19,6 +23,7 @@ internal sealed record FluxReport(
     IReadOnlyList<string> Undetermined,
     IReadOnlyDictionary<string, double?> Consistency,
     IReadOnlyList<FluxImbalanceRow> Imbalances,
+    FluxBalanceTest BalanceTest,
     double? Rq,
     int DirectionViolations,
     double? ConstraintResidual)
@@ -40,7 +45,7 @@ internal sealed record FluxReport(
             var c = model.Compounds[j];
             exchange[c.Id] = CliOutput.Finite(s.Exchange[j]);
             formulas[c.Id] = c.Formula.Text;
-            units[c.Id] = c.RateUnit;
+            units[c.Id] = c.RateUnit();
         }
 
         var fluxes = new Dictionary<string, double?>(StringComparer.Ordinal);
@@ -57,8 +62,8 @@ internal sealed record FluxReport(
         }
 
         double? rq = null;
-        var o2 = model.Compounds.FirstOrDefault(c => c.Role == "oxygen");
-        var co2 = model.Compounds.FirstOrDefault(c => c.Role == "carbonDioxide");
+        var o2 = model.Compounds.FirstOrDefault(c => c.Role == CompoundRole.Oxygen);
+        var co2 = model.Compounds.FirstOrDefault(c => c.Role == CompoundRole.CarbonDioxide);
         if (o2 is not null && co2 is not null)
         {
             rq = CliOutput.Finite(s.Exchange[model.CompoundIndex(co2.Id)] / -s.Exchange[model.CompoundIndex(o2.Id)]);
@@ -77,14 +82,23 @@ internal sealed record FluxReport(
             solver.Undetermined,
             consistency,
             [.. network.Imbalances.Select(i => new FluxImbalanceRow(i.Reaction, i.Element, i.Excess))],
+            BalanceTestOf(network, s),
             rq,
             s.DirectionViolations,
             CliOutput.Finite(s.ConstraintResidual));
     }
 
-    private static string StatusName(FluxSolveStatus status)
+    private static FluxBalanceTest BalanceTestOf(FluxNetwork network, FluxSolution s)
     {
-        string t = status.ToString();
+        var check = new BalanceCrossCheck(network);
+        var o = check.Check(s);
+        return new FluxBalanceTest(check.Balances, Camel(o.Status.ToString()), CliOutput.Finite(o.H), o.Dof, CliOutput.Finite(o.Critical), o.HasRates && o.Consistent);
+    }
+
+    private static string StatusName(FluxSolveStatus status) => Camel(status.ToString());
+
+    private static string Camel(string t)
+    {
         return char.ToLowerInvariant(t[0]) + t[1..];
     }
 }

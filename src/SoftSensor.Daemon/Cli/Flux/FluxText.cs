@@ -36,6 +36,8 @@ internal static class FluxText
         o.WriteLine();
         o.WriteLine("undetermined: " + (r.Undetermined.Count == 0 ? "none" : string.Join(", ", r.Undetermined)));
         o.WriteLine("elemental closure: " + string.Join("  ", r.Consistency.Select(c => $"{c.Key} {N(c.Value)}")));
+        var t = r.BalanceTest;
+        o.WriteLine($"elemental-balance test ({string.Join(", ", t.Balances)}): h = {N(t.H)}, {t.Dof} dof, critical {N(t.Critical)}: " + (t.Consistent ? "consistent" : $"NOT consistent ({t.Status})"));
         if (r.DirectionViolations > 0)
         {
             o.WriteLine($"warning: {r.DirectionViolations} irreversible reaction(s) came out negative");
