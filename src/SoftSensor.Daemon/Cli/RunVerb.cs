@@ -21,6 +21,8 @@ internal sealed class RunVerb : IVerb
         {
             config,
         };
+        var influx = new Timeseries.InfluxShortcutOptions();
+        influx.AddTo(command);
         command.TreatUnmatchedTokensAsErrors = false;
         command.SetAction(async (parse, ct) =>
         {
@@ -34,6 +36,11 @@ internal sealed class RunVerb : IVerb
             if (overrides.Count > 0 && !overrides[0].StartsWith("--", StringComparison.Ordinal))
             {
                 return CliOutput.BadInput(Console.Error, $"'{overrides[0]}' is not an option (expected --section:key=value overrides)");
+            }
+
+            if (influx.AppendTo(parse, overrides, Console.Error) is { } bad)
+            {
+                return bad;
             }
 
             var settings = new DaemonHostSettings { ConfigFile = file, CommandLine = overrides };

@@ -5,6 +5,7 @@ using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Alarming;
 using SoftSensor.Daemon.Status;
 
 namespace SoftSensor.Daemon.Hosting;
@@ -35,6 +36,8 @@ internal static class DaemonHost
         });
         builder.Logging.SetMinimumLevel(settings.ConsoleLevel);
         builder.Logging.AddFilter("Microsoft", LogLevel.Warning);
+        // A start failure (e.g. invalid configuration) is reported by DaemonRunner in one line; the host's own stack-trace log would repeat it.
+        builder.Logging.AddFilter("Microsoft.Extensions.Hosting.Internal.Host", LogLevel.Critical);
         builder.Services.AddSoftSensorDaemon(builder.Configuration);
         settings.ConfigureServices?.Invoke(builder.Services);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
@@ -42,6 +45,7 @@ internal static class DaemonHost
         // The exporter listens from the start, so /metrics counts what happened before its first request.
         app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();
+        app.MapAlarmEndpoints();
         return app;
     }
 

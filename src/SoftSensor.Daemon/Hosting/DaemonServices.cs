@@ -8,6 +8,8 @@ using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sinks;
 using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Store;
+using SoftSensor.Daemon.Timeseries;
+using SoftSensor.Daemon.Alarming;
 
 namespace SoftSensor.Daemon.Hosting;
 
@@ -41,6 +43,7 @@ internal static class DaemonServices
         // Sinks run in registration order: the store first (the durable outbox), then MQTT.
         services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
         services.AddSingleton<IEstimateSink, MqttEstimateSink>();
+        services.AddTimeseries(configuration).AddAlarms(configuration);
 
         services.TryAddSingleton<IReactorCycleFactory, OffGasCycleFactory>();
 

@@ -1,7 +1,7 @@
 namespace SoftSensor.Daemon.Timeseries;
 
 /// <summary>
-/// Configuration section <c>Timeseries</c>: where estimates go (an InfluxDB v2 write API) and how
+/// Configuration section <c>timeseries</c>: where estimates go (an InfluxDB v2 write API) and how
 /// the durable outbox behaves. Empty <see cref="Url"/> turns the sink off. The token comes from
 /// <see cref="Token"/> or, when that is empty, the environment variable
 /// <see cref="TokenEnvironmentVariable"/>; it is never logged and never shown by ToString.
@@ -9,7 +9,7 @@ namespace SoftSensor.Daemon.Timeseries;
 internal sealed class TimeseriesOptions
 {
     /// <summary>The configuration section.</summary>
-    public const string Section = "Timeseries";
+    public const string Section = "timeseries";
 
     /// <summary>The environment variable that holds the API token.</summary>
     public const string TokenEnvironmentVariable = "SOFTSENSOR_INFLUX_TOKEN";

@@ -23,20 +23,20 @@ internal sealed class TimeseriesOptionsValidator : IValidateOptions<TimeseriesOp
         const string s = TimeseriesOptions.Section;
         if (!Uri.TryCreate(o.Url, UriKind.Absolute, out var uri) || (uri.Scheme != Uri.UriSchemeHttp && uri.Scheme != Uri.UriSchemeHttps))
         {
-            errors.Add($"{s}:Url is '{o.Url}', expected an absolute http:// or https:// URL");
+            errors.Add($"{s}:url is '{o.Url}', expected an absolute http:// or https:// URL");
         }
 
-        Require(errors, !string.IsNullOrWhiteSpace(o.Org), $"{s}:Org is empty, expected the InfluxDB organisation");
-        Require(errors, !string.IsNullOrWhiteSpace(o.Bucket), $"{s}:Bucket is empty, expected the InfluxDB bucket");
-        Require(errors, !string.IsNullOrWhiteSpace(o.OutboxPath), $"{s}:OutboxPath is empty, expected a SQLite file path");
-        Require(errors, o.BatchSize is >= 1 and <= 100_000, $"{s}:BatchSize is {o.BatchSize}, expected 1 to 100000");
-        Require(errors, o.MaxOutboxMegabytes is > 0 and < 1_000_000, $"{s}:MaxOutboxMegabytes is {o.MaxOutboxMegabytes}, expected above 0 and below 1000000");
-        Require(errors, o.WarnAtPercent is > 0 and < 100, $"{s}:WarnAtPercent is {o.WarnAtPercent}, expected above 0 and below 100");
-        Require(errors, o.RetryInitialSeconds is > 0 and <= 3600, $"{s}:RetryInitialSeconds is {o.RetryInitialSeconds}, expected above 0 and at most 3600");
-        Require(errors, o.RetryMaxSeconds >= o.RetryInitialSeconds && o.RetryMaxSeconds <= 86400, $"{s}:RetryMaxSeconds is {o.RetryMaxSeconds}, expected at least RetryInitialSeconds ({o.RetryInitialSeconds}) and at most 86400");
-        Require(errors, o.TimeoutSeconds is > 0 and <= 600, $"{s}:TimeoutSeconds is {o.TimeoutSeconds}, expected above 0 and at most 600");
-        Require(errors, o.IdlePollSeconds is > 0 and <= 3600, $"{s}:IdlePollSeconds is {o.IdlePollSeconds}, expected above 0 and at most 3600");
-        Require(errors, o.ShutdownFlushSeconds is >= 0 and <= 600, $"{s}:ShutdownFlushSeconds is {o.ShutdownFlushSeconds}, expected 0 to 600");
+        Require(errors, !string.IsNullOrWhiteSpace(o.Org), $"{s}:org is empty, expected the InfluxDB organisation");
+        Require(errors, !string.IsNullOrWhiteSpace(o.Bucket), $"{s}:bucket is empty, expected the InfluxDB bucket");
+        Require(errors, !string.IsNullOrWhiteSpace(o.OutboxPath), $"{s}:outboxPath is empty, expected a SQLite file path");
+        Require(errors, o.BatchSize is >= 1 and <= 100_000, $"{s}:batchSize is {o.BatchSize}, expected 1 to 100000");
+        Require(errors, o.MaxOutboxMegabytes is > 0 and < 1_000_000, $"{s}:maxOutboxMegabytes is {o.MaxOutboxMegabytes}, expected above 0 and below 1000000");
+        Require(errors, o.WarnAtPercent is > 0 and < 100, $"{s}:warnAtPercent is {o.WarnAtPercent}, expected above 0 and below 100");
+        Require(errors, o.RetryInitialSeconds is > 0 and <= 3600, $"{s}:retryInitialSeconds is {o.RetryInitialSeconds}, expected above 0 and at most 3600");
+        Require(errors, o.RetryMaxSeconds >= o.RetryInitialSeconds && o.RetryMaxSeconds <= 86400, $"{s}:retryMaxSeconds is {o.RetryMaxSeconds}, expected at least retryInitialSeconds ({o.RetryInitialSeconds}) and at most 86400");
+        Require(errors, o.TimeoutSeconds is > 0 and <= 600, $"{s}:timeoutSeconds is {o.TimeoutSeconds}, expected above 0 and at most 600");
+        Require(errors, o.IdlePollSeconds is > 0 and <= 3600, $"{s}:idlePollSeconds is {o.IdlePollSeconds}, expected above 0 and at most 3600");
+        Require(errors, o.ShutdownFlushSeconds is >= 0 and <= 600, $"{s}:shutdownFlushSeconds is {o.ShutdownFlushSeconds}, expected 0 to 600");
         return errors;
     }
 

@@ -12,12 +12,12 @@ public class TimeseriesOptionsTests
         Assert.True(r.Failed);
         Assert.Equal(
         [
-            "Timeseries:Url is 'ftp://x', expected an absolute http:// or https:// URL",
-            "Timeseries:Org is empty, expected the InfluxDB organisation",
-            "Timeseries:BatchSize is 0, expected 1 to 100000",
-            "Timeseries:MaxOutboxMegabytes is 0, expected above 0 and below 1000000",
-            "Timeseries:WarnAtPercent is 100, expected above 0 and below 100",
-            "Timeseries:RetryMaxSeconds is 1, expected at least RetryInitialSeconds (5) and at most 86400",
+            "timeseries:url is 'ftp://x', expected an absolute http:// or https:// URL",
+            "timeseries:org is empty, expected the InfluxDB organisation",
+            "timeseries:batchSize is 0, expected 1 to 100000",
+            "timeseries:maxOutboxMegabytes is 0, expected above 0 and below 1000000",
+            "timeseries:warnAtPercent is 100, expected above 0 and below 100",
+            "timeseries:retryMaxSeconds is 1, expected at least retryInitialSeconds (5) and at most 86400",
         ], r.Failures);
     }
 

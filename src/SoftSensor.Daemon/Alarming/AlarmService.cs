@@ -1,0 +1,96 @@
+using Microsoft.Extensions.Logging;
+using SoftSensor.Core.Alarms;
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Sinks;
+
+namespace SoftSensor.Daemon.Alarming;
+
+/// <summary>
+/// Alarms in the pipeline: as an <see cref="IEstimateSink"/> it evaluates every frame (with the
+/// cycle's inputs from the <see cref="IAlarmSignalSource"/>s), journals each transition durably,
+/// then publishes it; operator commands from MQTT and the status page come through
+/// <see cref="CommandAsync"/>. Journal first, publish second: what was published is always in the
+/// journal.
+/// </summary>
+internal sealed class AlarmService(
+    AlarmEngine engine, AlarmJournal journal, IEnumerable<IAlarmSignalSource> signals, IEnumerable<IAlarmPublisher> publishers,
+    TimeProvider time, ILogger<AlarmService> log) : IEstimateSink
+{
+    private readonly IAlarmSignalSource[] _signals = [.. signals];
+    private readonly IAlarmPublisher[] _publishers = [.. publishers];
+
+    public string Name => "alarms";
+
+    /// <summary>The engine (states for the status page).</summary>
+    public AlarmEngine Engine => engine;
+
+    /// <summary>The journal (recent events for the status page).</summary>
+    public AlarmJournal Journal => journal;
+
+    public async ValueTask WriteAsync(EstimateFrame frame, CancellationToken cancellationToken)
+    {
+        var changes = engine.Evaluate(frame, s =>
+        {
+            foreach (var source in _signals)
+            {
+                source.AddSignals(frame, s);
+            }
+        });
+        await CommitAsync(changes, cancellationToken);
+    }
+
+    /// <summary>Parses and applies an operator command; the result says what happened or why not.</summary>
+    public async ValueTask<AlarmCommandResult> CommandAsync(ReadOnlyMemory<byte> json, string? reactorFromTopic, CancellationToken cancellationToken)
+    {
+        if (!AlarmCommandPayload.TryParse(json.Span, time.GetUtcNow(), out var command, out string? reactor, out string error))
+        {
+            AlarmLog.CommandRefused(log, reactorFromTopic ?? reactor ?? "?", error);
+            return AlarmCommandResult.Refused(error);
+        }
+
+        reactor = reactorFromTopic ?? reactor;
+        if (reactor is null)
+        {
+            var known = engine.ReactorIds;
+            if (known.Count != 1)
+            {
+                const string msg = "alarm command: reactor is missing, expected the reactor id";
+                AlarmLog.CommandRefused(log, "?", msg);
+                return AlarmCommandResult.Refused(msg);
+            }
+
+            reactor = known[0];
+        }
+
+        var (result, changes) = engine.Apply(reactor, command);
+        if (!result.Applied)
+        {
+            AlarmLog.CommandRefused(log, reactor, result.Message);
+            return result;
+        }
+
+        AlarmLog.CommandApplied(log, reactor, command.Kind.ToString(), command.RuleId, command.Operator, result.Transitions.Count);
+        await CommitAsync(changes, cancellationToken);
+        return result;
+    }
+
+    private async ValueTask CommitAsync(AlarmChanges changes, CancellationToken cancellationToken)
+    {
+        if (changes.Items.Count == 0)
+        {
+            return;
+        }
+
+        journal.Append(changes.Reactor, changes.Items);
+        foreach (var (t, rule, status) in changes.Items)
+        {
+            AlarmLog.Transition(log, changes.Reactor, t.RuleId, AlarmStates.Id(t.From), AlarmStates.Id(t.To), AlarmPayloads.CauseId(t.Cause), t.Value, rule.Message);
+            var state = AlarmPayloads.State(changes.Reactor, rule, status);
+            var evt = AlarmPayloads.Event(changes.Reactor, rule, t);
+            foreach (var p in _publishers)
+            {
+                await p.PublishAsync(state, evt, cancellationToken);
+            }
+        }
+    }
+}
