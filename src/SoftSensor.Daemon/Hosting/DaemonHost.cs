@@ -36,6 +36,8 @@ internal static class DaemonHost
         });
         builder.Logging.SetMinimumLevel(settings.ConsoleLevel);
         builder.Logging.AddFilter("Microsoft", LogLevel.Warning);
+        // A start failure (e.g. invalid configuration) is reported by DaemonRunner in one line; the host's own stack-trace log would repeat it.
+        builder.Logging.AddFilter("Microsoft.Extensions.Hosting.Internal.Host", LogLevel.Critical);
         builder.Services.AddSoftSensorDaemon(builder.Configuration);
         settings.ConfigureServices?.Invoke(builder.Services);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);

@@ -1,0 +1,65 @@
+using System.Globalization;
+using System.Text;
+using MQTTnet;
+using MQTTnet.Protocol;
+using SoftSensor.Simulation;
+
+namespace SoftSensor.Daemon.Demo;
+
+/// <summary>
+/// Drives the virtual reactor on the demo's accelerated clock and publishes its tags to the broker
+/// as a plant gateway would: one JSON message per tag, <c>{"value", "timestamp", "quality"}</c>, on
+/// <c>demo/{reactor}/{tag}</c>, every scenario output interval of simulated time.
+/// </summary>
+internal sealed class DemoPublisher
+{
+    private readonly VirtualReactor _reactor;
+    private readonly TimeProvider _clock;
+    private readonly string _reactorId;
+
+    public DemoPublisher(VirtualReactor reactor, TimeProvider clock, string reactorId)
+    {
+        _reactor = reactor;
+        _clock = clock;
+        _reactorId = reactorId;
+    }
+
+    /// <summary>The topic of a simulator tag (lowercase, dots become slashes' neighbours: R1.AIR.FLOW → demo/r1/air.flow).</summary>
+    public static string Topic(string reactorId, string tagName) =>
+        $"demo/{reactorId}/{tagName[(tagName.IndexOf('.', StringComparison.Ordinal) + 1)..].ToLowerInvariant()}";
+
+    /// <summary>Publishes until cancelled.</summary>
+    public async Task RunAsync(string host, int port, CancellationToken cancellationToken)
+    {
+        using var client = new MqttClientFactory().CreateMqttClient();
+        var result = await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithClientId("softsensor-demo-reactor").Build(), cancellationToken);
+        if (result.ResultCode != MqttClientConnectResultCode.Success)
+        {
+            throw new InvalidOperationException($"the demo broker refused the simulator: {result.ResultCode}");
+        }
+
+        var interval = TimeSpan.FromSeconds(_reactor.Scenario.OutputIntervalS);
+        var values = new double[_reactor.Tags.Count];
+        var topics = _reactor.Tags.Select(t => Topic(_reactorId, t.Name)).ToArray();
+        using var timer = new PeriodicTimer(interval, _clock);
+        do
+        {
+            var lag = _clock.GetUtcNow() - _reactor.Time;
+            if (lag > TimeSpan.Zero)
+            {
+                _reactor.Step(lag);
+            }
+
+            _reactor.ReadTags(values);
+            string time = _reactor.Time.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
+            for (int i = 0; i < values.Length; i++)
+            {
+                string json = string.Create(CultureInfo.InvariantCulture, $$"""{"value":{{values[i]:R}},"timestamp":"{{time}}","quality":"good"}""");
+                var message = new MqttApplicationMessageBuilder().WithTopic(topics[i]).WithPayload(Encoding.UTF8.GetBytes(json))
+                    .WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtMostOnce).Build();
+                await client.PublishAsync(message, cancellationToken);
+            }
+        }
+        while (await timer.WaitForNextTickAsync(cancellationToken));
+    }
+}

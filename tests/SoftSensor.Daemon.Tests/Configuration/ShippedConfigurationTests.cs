@@ -1,0 +1,23 @@
+using Microsoft.Extensions.Configuration;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Demo;
+
+namespace SoftSensor.Daemon.Tests.Configuration;
+
+public class ShippedConfigurationTests
+{
+    [Theory]
+    [InlineData("config/demo.json")]
+    [InlineData("config/plant-example.json")]
+    public void Validate_shipped_configuration_file_succeeds(string file)
+    {
+        string path = DemoFiles.Find(file) ?? throw new FileNotFoundException(file);
+        var o = new SoftSensorOptions();
+        new ConfigurationBuilder().AddJsonFile(path).Build().Bind(o);
+
+        var result = new SoftSensorOptionsValidator().Validate(null, o);
+
+        Assert.True(result.Succeeded, result.FailureMessage);
+        Assert.NotEmpty(o.Reactors[0].Tags);
+    }
+}
