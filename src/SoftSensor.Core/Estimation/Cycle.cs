@@ -11,12 +11,11 @@ namespace SoftSensor.Core.Estimation;
 /// <see cref="AnalyserAlignment"/>) → elemental balance reconciliation of OUR, CER and the
 /// feed- and base-derived rates → consistency test h, diagnosis only when it fails → growth rate
 /// → biomass observers → feed advisory. Pure and allocation-free per cycle; not thread-safe (one
-/// instance per reactor). CER is the CO2 transfer rate: no dissolved-CO2 correction is applied.
+/// instance per reactor; it lends itself the volume slot of the inputs during a call and restores it). CER is the CO2 transfer rate: no dissolved-CO2 correction is applied.
 /// </summary>
 public sealed class Cycle
 {
     private readonly CycleSettings _settings;
-    private readonly AlignedInputs _work = new();
     private readonly BalanceStage _withSubstrate;
     private readonly BalanceStage _gasOnly;
     private readonly bool _ammonia;
@@ -90,9 +89,21 @@ public sealed class Cycle
         var volume = VolumeStep.Begin(inputs, state, est);
         double v = volume.VolumeL;
 
-        _work.CopyFrom(inputs);
-        _work.Set(SignalRole.LiquidVolumeL, v, SampleQuality.Good, inputs.Time);
-        var gas = GasBalance.Compute(_work, _settings.Gas);
+        // The gas balance divides by the volume the cycle tracks: lend it the slot, then put the caller's value back.
+        bool hadVolume = inputs.Has(SignalRole.LiquidVolumeL);
+        double volumeValue = inputs[SignalRole.LiquidVolumeL];
+        var volumeQuality = inputs.QualityOf(SignalRole.LiquidVolumeL);
+        var volumeTime = inputs.SourceTimeOf(SignalRole.LiquidVolumeL);
+        inputs.Set(SignalRole.LiquidVolumeL, v, SampleQuality.Good, inputs.Time);
+        var gas = GasBalance.Compute(inputs, _settings.Gas);
+        if (hadVolume)
+        {
+            inputs.Set(SignalRole.LiquidVolumeL, volumeValue, volumeQuality, volumeTime);
+        }
+        else
+        {
+            inputs.Remove(SignalRole.LiquidVolumeL);
+        }
 
         var rates = new BalanceRates
         {

@@ -43,8 +43,11 @@ internal sealed class TagOptions
     /// <summary>Transport delay to undo: the cycle at time t uses this tag's value from t − DeadTime (off-gas analyser).</summary>
     public TimeSpan DeadTime { get; set; } = TimeSpan.Zero;
 
-    /// <summary>MQTT topic the tag arrives on (exact topic, no wildcards).</summary>
+    /// <summary>MQTT topic the tag arrives on (exact topic, no wildcards); empty when it comes over OPC UA.</summary>
     public string Topic { get; set; } = "";
+
+    /// <summary>OPC UA node the tag is read from (<c>nsu=URI;s=Id</c> or a browse path such as <c>Objects/Reactor1/OffgasO2</c>); empty for MQTT.</summary>
+    public string OpcUaNode { get; set; } = "";
 
     /// <summary>How the payload is laid out.</summary>
     public PayloadOptions Payload { get; set; } = new();

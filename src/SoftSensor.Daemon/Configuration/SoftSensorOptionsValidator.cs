@@ -107,7 +107,19 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:deadTime is {t.DeadTime} (expected between 00:00:00 and 01:00:00)");
         }
 
-        if (string.IsNullOrWhiteSpace(t.Topic) || t.Topic.Contains('+', StringComparison.Ordinal) || t.Topic.Contains('#', StringComparison.Ordinal))
+        if (!string.IsNullOrWhiteSpace(t.OpcUaNode))
+        {
+            if (new SoftSensor.OpcUa.Subscriptions.NodeReference(t.OpcUaNode).Validate() is { } nodeError)
+            {
+                errors.Add($"{key}:opcUaNode is '{t.OpcUaNode}' ({nodeError})");
+            }
+
+            if (!string.IsNullOrWhiteSpace(t.Topic))
+            {
+                errors.Add($"{key}:topic is '{t.Topic}' (expected empty when opcUaNode is set: a tag has one source)");
+            }
+        }
+        else if (string.IsNullOrWhiteSpace(t.Topic) || t.Topic.Contains('+', StringComparison.Ordinal) || t.Topic.Contains('#', StringComparison.Ordinal))
         {
             errors.Add($"{key}:topic is '{t.Topic}' (expected an exact MQTT topic without wildcards)");
         }

@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Mqtt;
+using SoftSensor.Daemon.OpcUa;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sinks;
 using SoftSensor.Daemon.Status;
@@ -44,6 +45,9 @@ internal static class DaemonServices
         services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
         services.AddSingleton<IEstimateSink, MqttEstimateSink>();
         services.AddTimeseries(configuration).AddAlarms(configuration);
+
+        // OPC UA: tags with an opcUaNode, and estimates written back (section opcUa); after MQTT.
+        services.AddOpcUaAdapter(configuration);
 
         services.TryAddSingleton<IReactorCycleFactory, OffGasCycleFactory>();
 

@@ -13,7 +13,8 @@ internal sealed record TagBinding(
     TimeSpan MaxAge,
     TimeSpan DeadTime,
     string Topic,
-    PayloadOptions Payload)
+    PayloadOptions Payload,
+    string OpcUaNode = "")
 {
     /// <summary>Compiles every tag of a validated reactor.</summary>
     public static IReadOnlyList<TagBinding> FromOptions(ReactorOptions reactor) =>
@@ -28,7 +29,8 @@ internal sealed record TagBinding(
                 kv.Value.MaxAge,
                 kv.Value.DeadTime,
                 kv.Value.Topic,
-                kv.Value.Payload))
+                kv.Value.Payload,
+                kv.Value.OpcUaNode))
             .ToList();
 
     /// <summary>The raw plant value converted to the role's unit.</summary>

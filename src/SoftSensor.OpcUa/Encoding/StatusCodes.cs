@@ -10,6 +10,7 @@ namespace SoftSensor.OpcUa.Encoding;
 public static class StatusCodes
 {
     public const uint Good = 0x00000000;
+    public const uint Uncertain = 0x40000000;
     public const uint UncertainLastUsableValue = 0x40900000;
     public const uint UncertainInitialValue = 0x40920000;
     public const uint UncertainSensorNotAccurate = 0x40930000;

@@ -7,9 +7,10 @@ namespace SoftSensor.Benchmarks.Cycle;
 /// <summary>
 /// The cycle alone for the glycerol model (gas balance, reconciliation, h test, integration and
 /// observers; diagnosis when the test fails): cycles per second = OperationsPerInvoke / mean time.
-/// [MemoryDiagnoser] must show 0 B allocated. Run: dotnet run -c Release --project tests/SoftSensor.Benchmarks -- --filter '*CycleBenchmarks*'
+/// [MemoryDiagnoser] must show 0 B allocated. In process: the benchmark project references the daemon, whose generated rebuild is slow. Run: dotnet run -c Release --project tests/SoftSensor.Benchmarks -- --filter '*CycleBenchmarks*'
 /// </summary>
 [MemoryDiagnoser]
+[InProcess]
 public class CycleBenchmarks
 {
     private const int Cycles = 10_000;

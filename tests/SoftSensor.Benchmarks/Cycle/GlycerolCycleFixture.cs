@@ -8,15 +8,18 @@ namespace SoftSensor.Benchmarks.Cycle;
 /// <summary>The glycerol model and cycle settings of the shipped replay configuration, for the benchmarks.</summary>
 internal static class GlycerolCycleFixture
 {
-    public static string RepoRoot()
+    public static string RepoRoot() => RootAbove(AppContext.BaseDirectory) ?? RootAbove(Directory.GetCurrentDirectory())
+        ?? throw new InvalidOperationException("SoftSensor.sln not found above " + AppContext.BaseDirectory + " or the current folder");
+
+    private static string? RootAbove(string start)
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        var dir = new DirectoryInfo(start);
         while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "SoftSensor.sln")))
         {
             dir = dir.Parent;
         }
 
-        return dir?.FullName ?? throw new InvalidOperationException("SoftSensor.sln not found above " + AppContext.BaseDirectory);
+        return dir?.FullName;
     }
 
     public static StoichiometricModel Model() =>
