@@ -1,0 +1,87 @@
+using Microsoft.Extensions.Configuration;
+using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Hosting;
+
+namespace SoftSensor.Daemon.Cli.Check;
+
+/// <summary>
+/// Validates a daemon configuration without starting anything: the layers and binding of <c>run</c>
+/// (<see cref="DaemonConfiguration"/>, <see cref="SoftSensorOptionsValidator"/>), then per reactor the
+/// tag units, the model's structure with the measured rates, and the alarm rules. Collects every problem.
+/// </summary>
+internal static class ConfigurationCheck
+{
+    /// <summary>Checks the configuration <paramref name="settings"/> names.</summary>
+    public static CheckReport Run(DaemonHostSettings settings)
+    {
+        string file = settings.ConfigFile ?? "";
+        var problems = new List<string>();
+        var manager = new ConfigurationManager();
+        var options = new SoftSensorOptions();
+        try
+        {
+            DaemonConfiguration.Apply(manager, settings);
+            manager.Bind(options);
+        }
+        catch (Exception e) when (e is InvalidDataException or FormatException or InvalidOperationException or IOException)
+        {
+            problems.Add($"configuration '{file}' cannot be read: {e.Message} {e.InnerException?.Message}".TrimEnd());
+            return new CheckReport(file, false, problems, [], []);
+        }
+
+        var validation = new SoftSensorOptionsValidator().Validate(null, options);
+        if (validation.Failed)
+        {
+            problems.AddRange(validation.Failures);
+        }
+
+        string folder = Path.GetDirectoryName(Path.GetFullPath(file)) ?? ".";
+        var alarms = AlarmCheck.Run(manager, options, folder, problems);
+        var reactors = new List<ReactorCheck>();
+        for (int i = 0; i < options.Reactors.Count; i++)
+        {
+            var r = options.Reactors[i];
+            string key = $"reactors:{i}";
+            var tags = r.Tags.Select(t => Tag(key, t.Key, t.Value, problems)).ToList();
+            ModelCheck? model = null;
+            if (!string.IsNullOrWhiteSpace(r.ModelFile))
+            {
+                model = ModelStructure.Run(key + ":modelFile", Resolve(r.ModelFile, folder), r, problems);
+            }
+
+            reactors.Add(new ReactorCheck(r.Id, r.BatchId, r.CyclePeriod, tags, model));
+        }
+
+        return new CheckReport(file, problems.Count == 0, problems, reactors, alarms);
+    }
+
+    /// <summary>A path as given when it exists from the working folder, else relative to the configuration's folder.</summary>
+    public static string Resolve(string path, string configFolder) =>
+        Path.IsPathRooted(path) || File.Exists(path) || Directory.Exists(path) ? path : Path.GetFullPath(Path.Combine(configFolder, path));
+
+    private static TagLine Tag(string reactorKey, string name, TagOptions t, List<string> problems)
+    {
+        bool known = Enum.TryParse<SignalRole>(t.Role, ignoreCase: true, out var role) && Enum.IsDefined(role) && !int.TryParse(t.Role, out _);
+        string roleUnit = known ? SignalRoles.UnitOf(role) : "?";
+        bool converts = true;
+        if (known && t.Unit.Trim().Length > 0)
+        {
+            string? dimension = UnitDimensions.Of(t.Unit);
+            string expected = UnitDimensions.OfRole(role);
+            string key = $"{reactorKey}:tags:{name}:unit";
+            if (dimension is null)
+            {
+                converts = false;
+                problems.Add($"{key} is '{t.Unit}' (expected a unit of {expected} that scales to {roleUnit}, the unit of role {role}: {string.Join(", ", UnitDimensions.UnitsOf(expected))})");
+            }
+            else if (dimension != expected)
+            {
+                converts = false;
+                problems.Add($"{key} is '{t.Unit}', a unit of {dimension} (expected a unit of {expected}: role {role} is in {roleUnit})");
+            }
+        }
+
+        return new TagLine(name, t.Role, t.Unit, roleUnit, t.Scale, t.Offset, t.DeadTime, t.Topic, converts);
+    }
+}
