@@ -35,6 +35,12 @@ public sealed record BalanceAnalysis
     /// <summary>Unknown rates they leave open.</summary>
     public required IReadOnlyList<string> NotCalculable { get; init; }
 
+    /// <summary>
+    /// Compounds of the model that no chosen balance contains (water when gamma replaces H and O):
+    /// left out of the result; measure them, or balance H and O, to have them.
+    /// </summary>
+    public required IReadOnlyList<string> OutsideBalances { get; init; }
+
     /// <summary>Further independent measurements or specifications needed for every rate (0 when determined).</summary>
     public required int MissingInformation { get; init; }
 

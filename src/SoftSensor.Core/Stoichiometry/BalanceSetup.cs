@@ -15,7 +15,11 @@ internal sealed class BalanceSetup
         MeasuredIds = measured;
         Specifications = specifications;
         var named = measured.Concat(specifications.SelectMany(s => new[] { s.Numerator, s.Denominator })).ToHashSet(StringComparer.Ordinal);
-        Columns = model.Compounds.Where(c => c.Role != CompoundRole.Candidate || named.Contains(c.Id)).ToArray();
+        // A compound that no balance contains (water under C, gamma, N) can never be calculated:
+        // it stays out of the columns unless measured or specified, and is reported apart.
+        bool InBalances(Compound c) => model.Balances.Any(b => b.CoefficientOf(c) != 0);
+        Columns = model.Compounds.Where(c => named.Contains(c.Id) || (c.Role != CompoundRole.Candidate && InBalances(c))).ToArray();
+        OutsideBalances = model.Compounds.Where(c => !named.Contains(c.Id) && c.Role != CompoundRole.Candidate && !InBalances(c)).ToArray();
         Candidates = model.Compounds.Where(c => c.Role == CompoundRole.Candidate && !named.Contains(c.Id)).ToArray();
         var ids = Columns.Select(c => c.Id).ToList();
         MeasuredColumns = measured.Select(id => ids.IndexOf(id)).ToArray();
@@ -32,6 +36,8 @@ internal sealed class BalanceSetup
     public Compound[] Columns { get; }
 
     public Compound[] Candidates { get; }
+
+    public Compound[] OutsideBalances { get; }
 
     public int[] MeasuredColumns { get; }
 

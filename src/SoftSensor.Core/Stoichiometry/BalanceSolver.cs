@@ -55,6 +55,7 @@ public sealed class BalanceSolver
             Calculable = _base.UnknownColumns.Where((_, j) => _base.Calculable[j]).Select(c => CompoundIds[c]).ToArray(),
             NotCalculable = _base.UnknownColumns.Where((_, j) => !_base.Calculable[j]).Select(c => CompoundIds[c]).ToArray(),
             MissingInformation = _base.Nullity,
+            OutsideBalances = setup.OutsideBalances.Select(c => c.Id).ToArray(),
         };
     }
 

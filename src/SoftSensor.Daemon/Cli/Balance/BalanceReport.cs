@@ -41,6 +41,9 @@ internal sealed record BalanceReport
 
     public required string? Advice { get; init; }
 
+    /// <summary>Compounds that no chosen balance contains (not calculable, not in <see cref="Rates"/>).</summary>
+    public required IReadOnlyList<string> OutsideBalances { get; init; }
+
     public required RecoveryEntry Recovery { get; init; }
 
     internal sealed record MeasuredEntry(double Value, double Sigma, bool SigmaAssumed, double? Reconciled);
@@ -91,7 +94,7 @@ internal sealed record BalanceReport
                 ? []
                 : solver.Hypotheses.Select((h, i) => new HypothesisEntry(
                     h.Description,
-                    CliOutput.Finite(hypotheses[i].H),
+                    hypotheses[i].Testable ? CliOutput.Finite(hypotheses[i].H) : null,
                     hypotheses[i].Dof,
                     CliOutput.Finite(hypotheses[i].Critical),
                     hypotheses[i].Testable ? hypotheses[i].Consistent : null,
@@ -99,6 +102,7 @@ internal sealed record BalanceReport
             Calculable = solver.Analysis.Calculable,
             NotCalculable = solver.Analysis.NotCalculable,
             Advice = solver.Analysis.IsDetermined ? null : solver.Analysis.Advice,
+            OutsideBalances = solver.Analysis.OutsideBalances,
             Recovery = new RecoveryEntry(
                 CliOutput.Finite(Core.Stoichiometry.Recovery.Of(Core.Stoichiometry.Balance.Of(Element.C), compounds, raw)),
                 CliOutput.Finite(Core.Stoichiometry.Recovery.Of(Core.Stoichiometry.Balance.DegreeOfReduction, compounds, raw))),

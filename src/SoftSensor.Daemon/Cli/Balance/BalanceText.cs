@@ -47,6 +47,11 @@ internal static class BalanceText
 
         o.WriteLine();
         o.WriteLine($"recovery     carbon {Num(r.Recovery.Carbon)}, electrons {Num(r.Recovery.Electrons)} (of the measured rates as given; 1 = closed)");
+        if (r.OutsideBalances.Count > 0)
+        {
+            o.WriteLine($"outside      {string.Join(", ", r.OutsideBalances)}: in none of the balances {string.Join(", ", r.Balances)}, so not calculated (balance H and O to have water)");
+        }
+
         if (r.Advice is not null)
         {
             o.WriteLine($"undetermined {string.Join(", ", r.NotCalculable)}");
