@@ -2,6 +2,7 @@ using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Configuration;
 
@@ -15,7 +16,8 @@ namespace SoftSensor.Daemon.Batches;
 internal static class BatchEndpoints
 {
     /// <summary>Registers the batch book (one line in the host's services).</summary>
-    public static IServiceCollection AddBatches(this IServiceCollection services) => services.AddSingleton<BatchBook>();
+    public static IServiceCollection AddBatches(this IServiceCollection services) =>
+        services.AddSingleton<BatchBook>().AddHostedService<BatchCommandListener>();
 
     public static void MapBatchEndpoints(this IEndpointRouteBuilder app)
     {

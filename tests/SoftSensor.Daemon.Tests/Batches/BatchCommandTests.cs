@@ -55,6 +55,39 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
         }
     }
 
+    [Fact]
+    public async Task BatchCommand_over_mqtt_starts_and_ends_batch_and_answers_on_result_topic()
+    {
+        var config = TestConfigs.HandCase(broker.Port, "batchmqtt");
+        var frames = new ConcurrentQueue<EstimateFrame>();
+        await using var daemon = await TestDaemon.StartAsync(config, s => s.AddSingleton<IEstimateSink>(new CaptureSink(frames)));
+        await using var client = await TestMqttClient.ConnectAsync(broker.Port, "batchmqtt-test");
+        string topic = "softsensor/pilot/batchmqtt/r1/command/batch";
+        await client.SubscribeAsync(topic + "/result");
+        var until = DateTime.UtcNow + TimeSpan.FromSeconds(10);
+        while (!daemon.Get<SoftSensor.Daemon.Mqtt.MqttLink>().IsSubscribed(topic))
+        {
+            Assert.True(DateTime.UtcNow < until, "command topic not subscribed");
+            await Task.Delay(20);
+        }
+
+        await client.PublishAsync(topic, "{\"command\":\"start\",\"batchId\":\"yeast-3\",\"initialVolumeL\":30,\"inoculumBiomassGPerL\":0.3,\"inoculumBiomassSigmaGPerL\":0.05,\"initialSubstrateGPerL\":20}");
+        var (_, started) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "start result");
+        Assert.Contains("\"applied\":true", started, StringComparison.Ordinal);
+        await WaitForAsync(frames, "yeast-3");
+
+        client.Clear();
+        await client.PublishAsync(topic, "{\"command\":\"pause\"}");
+        var (_, refused) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "refusal");
+        Assert.Contains("expected start or end", refused, StringComparison.Ordinal);
+
+        client.Clear();
+        await client.PublishAsync(topic, "{\"command\":\"end\"}");
+        var (_, ended) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "end result");
+        Assert.Contains("\"applied\":true", ended, StringComparison.Ordinal);
+        Assert.Null(daemon.Get<Daemon.Batches.BatchBook>().Current("r1"));
+    }
+
     private static async Task WaitForAsync(ConcurrentQueue<EstimateFrame> frames, string batchId)
     {
         var until = DateTime.UtcNow + TimeSpan.FromSeconds(10);
