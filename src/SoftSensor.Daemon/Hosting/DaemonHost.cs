@@ -48,6 +48,7 @@ internal static class DaemonHost
         app.MapStatusEndpoints();
         app.MapAlarmEndpoints();
         app.MapBatchEndpoints();
+        app.MapBatchForm();
         return app;
     }
 

@@ -88,6 +88,27 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
         Assert.Null(daemon.Get<Daemon.Batches.BatchBook>().Current("r1"));
     }
 
+    [Fact]
+    public async Task BatchForm_post_starts_batch_and_page_shows_it()
+    {
+        var config = TestConfigs.HandCase(broker.Port, "batchform");
+        await using var daemon = await TestDaemon.StartAsync(config);
+        using var http = new HttpClient { BaseAddress = new Uri(daemon.StatusAddress) };
+        Assert.Contains("Start batch", await http.GetStringAsync(new Uri("/batches", UriKind.Relative)), StringComparison.Ordinal);
+
+        using var bad = new FormUrlEncodedContent(new Dictionary<string, string> { ["batchId"] = "f-1", ["initialVolumeL"] = "x" });
+        string refused = await (await http.PostAsync(new Uri("/batches/r1/start", UriKind.Relative), bad)).Content.ReadAsStringAsync();
+        Assert.Contains("initialVolumeL is NaN", refused, StringComparison.Ordinal);
+
+        using var good = new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["batchId"] = "f-1", ["initialVolumeL"] = "30", ["inoculumBiomassGPerL"] = "0.3", ["inoculumBiomassSigmaGPerL"] = "0.05", ["initialSubstrateGPerL"] = "20",
+        });
+        string page = await (await http.PostAsync(new Uri("/batches/r1/start", UriKind.Relative), good)).Content.ReadAsStringAsync();
+        Assert.Contains("Open batch <b>f-1</b>", page, StringComparison.Ordinal);
+        Assert.Equal("f-1", daemon.Get<Daemon.Batches.BatchBook>().Current("r1")!.BatchId);
+    }
+
     private static async Task WaitForAsync(ConcurrentQueue<EstimateFrame> frames, string batchId)
     {
         var until = DateTime.UtcNow + TimeSpan.FromSeconds(10);
