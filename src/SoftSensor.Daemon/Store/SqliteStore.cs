@@ -20,6 +20,7 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     private readonly SqliteConnection _writer;
     private readonly string _connectionString;
     private readonly TimeProvider _time;
+    private IFrameCompanion[] _companions = [];
 
     public SqliteStore(IOptions<SoftSensorOptions> options, TimeProvider time)
         : this(options.Value.Store.Path, time)
@@ -42,7 +43,21 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     /// <summary>Full path of the database file.</summary>
     public string Path { get; }
 
-    /// <summary>Stores a frame with all its values in one transaction; returns the frame's id.</summary>
+    /// <summary>Adds a companion whose rows are committed in the same transaction as each frame (see <see cref="IFrameCompanion"/>).</summary>
+    public void Attach(IFrameCompanion companion)
+    {
+        _writeGate.Wait();
+        try
+        {
+            _companions = [.. _companions, companion];
+        }
+        finally
+        {
+            _writeGate.Release();
+        }
+    }
+
+    /// <summary>Stores a frame with all its values (and the companions' rows) in one transaction; returns the frame's id.</summary>
     public async ValueTask<long> WriteFrameAsync(EstimateFrame frame, CancellationToken cancellationToken)
     {
         await _writeGate.WaitAsync(cancellationToken);
@@ -82,7 +97,18 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
                 e.ExecuteNonQuery();
             }
 
+            Action?[] after = _companions.Length == 0 ? [] : new Action?[_companions.Length];
+            for (int i = 0; i < _companions.Length; i++)
+            {
+                after[i] = _companions[i].Write(frame, _writer, tx);
+            }
+
             tx.Commit();
+            foreach (var a in after)
+            {
+                a?.Invoke();
+            }
+
             return id;
         }
         finally

@@ -97,6 +97,44 @@ internal sealed class OutboxStore : IDisposable
         }
     }
 
+    /// <summary>Full path of the SQLite file that holds the outbox table.</summary>
+    public string FullPath => System.IO.Path.GetFullPath(_db.DataSource);
+
+    /// <summary>
+    /// Inserts one frame's payload through another connection to the same file inside its open
+    /// transaction (the store's frame transaction); returns the bookkeeping to run after commit, or
+    /// null (nothing written) when the payload would pass the bound.
+    /// </summary>
+    public Action? EnqueueWithin(string payload, DateTimeOffset now, SqliteConnection connection, SqliteTransaction transaction)
+    {
+        int bytes = System.Text.Encoding.UTF8.GetByteCount(payload);
+        long ms = now.ToUnixTimeMilliseconds();
+        lock (_gate)
+        {
+            if (_bytes + bytes > _limitBytes)
+            {
+                return null;
+            }
+        }
+
+        using var cmd = connection.CreateCommand();
+        cmd.Transaction = transaction;
+        cmd.CommandText = "INSERT INTO ts_outbox(enqueued_ms, payload, bytes) VALUES ($t, $p, $b);";
+        cmd.Parameters.AddWithValue("$t", ms);
+        cmd.Parameters.AddWithValue("$p", payload);
+        cmd.Parameters.AddWithValue("$b", bytes);
+        cmd.ExecuteNonQuery();
+        return () =>
+        {
+            lock (_gate)
+            {
+                _depth++;
+                _bytes += bytes;
+                _oldestMs ??= ms;
+            }
+        };
+    }
+
     /// <summary>The oldest unsent rows, at most <paramref name="max"/>.</summary>
     public IReadOnlyList<OutboxEntry> PeekBatch(int max)
     {

@@ -4,6 +4,7 @@ using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Sinks;
+using SoftSensor.Daemon.Store;
 
 namespace SoftSensor.Daemon.Timeseries;
 
@@ -50,7 +51,17 @@ internal static class TimeseriesServices
             sp.GetRequiredService<OutboxStore>(), sp.GetRequiredService<ITimeseriesWriter>(), sp.GetRequiredService<TimeseriesOptions>(),
             sp.GetRequiredService<TimeseriesMetrics>(), sp.GetRequiredService<TimeProvider>(), sp.GetRequiredService<ILogger<OutboxSender>>()));
         services.AddHostedService(sp => sp.GetRequiredService<OutboxSender>());
-        services.AddSingleton<TimeseriesSink>();
+        services.AddSingleton(sp =>
+        {
+            var sink = ActivatorUtilities.CreateInstance<TimeseriesSink>(sp);
+            // Same file as the daemon's store: commit the outbox row in the frame's own transaction.
+            if (sp.GetService<SqliteStore>() is { } frames)
+            {
+                sink.AttachTo(frames);
+            }
+
+            return sink;
+        });
         services.AddSingleton<IEstimateSink>(sp => sp.GetRequiredService<TimeseriesSink>());
         return services;
     }
