@@ -1,3 +1,4 @@
+using SoftSensor.Daemon.Batches;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Hosting.Server;
@@ -47,6 +48,8 @@ internal static class DaemonHost
         app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();
         app.MapAlarmEndpoints();
+        app.MapBatchEndpoints();
+        app.MapBatchForm();
         return app;
     }
 

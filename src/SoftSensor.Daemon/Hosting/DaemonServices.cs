@@ -11,6 +11,7 @@ using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Store;
 using SoftSensor.Daemon.Timeseries;
 using SoftSensor.Daemon.Alarming;
+using SoftSensor.Daemon.Batches;
 
 namespace SoftSensor.Daemon.Hosting;
 
@@ -36,6 +37,7 @@ internal static class DaemonServices
 
         services.AddSingleton<SqliteStore>();
         services.AddSingleton<ICheckpointStore>(sp => sp.GetRequiredService<SqliteStore>());
+        services.AddBatches();
 
         // The broker link keeps real time even when the demo accelerates the process clock.
         services.AddSingleton(sp => ActivatorUtilities.CreateInstance<MqttLink>(sp, TimeProvider.System));

@@ -11,4 +11,8 @@ internal sealed record PipelineServices(
     ICheckpointStore? Checkpoints,
     DaemonMetrics Metrics,
     ILogger Logger,
-    int CheckpointEveryCycles);
+    int CheckpointEveryCycles)
+{
+    /// <summary>The operator's batches: the open batch's id replaces the configured one in every frame (null in tests without it).</summary>
+    public Batches.BatchBook? Batches { get; init; }
+}

@@ -20,10 +20,11 @@ internal sealed class PipelineSupervisor : BackgroundService
         ICheckpointStore checkpoints,
         DaemonMetrics metrics,
         TimeProvider time,
-        ILogger<PipelineSupervisor> logger)
+        ILogger<PipelineSupervisor> logger,
+        Batches.BatchBook? batches = null)
     {
         var o = options.Value;
-        var services = new PipelineServices(time, dispatcher, board, checkpoints, metrics, logger, o.Store.CheckpointEveryCycles);
+        var services = new PipelineServices(time, dispatcher, board, checkpoints, metrics, logger, o.Store.CheckpointEveryCycles) { Batches = batches };
         var factories = sourceFactories.ToList();
         _pipelines = o.Reactors.Select(r =>
         {

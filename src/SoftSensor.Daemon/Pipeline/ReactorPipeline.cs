@@ -43,6 +43,9 @@ internal sealed class ReactorPipeline
     /// <summary>The reactor id.</summary>
     public string Reactor => _options.Id;
 
+    /// <summary>The open batch's id, else the configured one.</summary>
+    private string BatchId => _services.Batches?.Current(Reactor)?.BatchId ?? _options.BatchId;
+
     /// <summary>True while the cycle loop waits for its next tick (lets tests on a fake clock advance it safely).</summary>
     internal bool IsWaitingForTick => _waitingForTick;
 
@@ -132,14 +135,14 @@ internal sealed class ReactorPipeline
             }
 
             var sourceTime = output.SourceTime == default ? now : output.SourceTime;
-            return new EstimateFrame(Reactor, _options.BatchId, sourceTime, quality, output.Values);
+            return new EstimateFrame(Reactor, BatchId, sourceTime, quality, output.Values);
         }
         catch (Exception e) when (e is ArithmeticException or InvalidOperationException or ArgumentException)
         {
             // A cycle reports everyday failures as results; an exception here is a programming or model
             // error. Publish a Bad frame rather than stop the reactor's pipeline, and log it.
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
-            return new EstimateFrame(Reactor, _options.BatchId, now, SampleQuality.Bad, []);
+            return new EstimateFrame(Reactor, BatchId, now, SampleQuality.Bad, []);
         }
     }
 

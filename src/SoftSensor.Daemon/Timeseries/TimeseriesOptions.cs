@@ -32,7 +32,7 @@ internal sealed class TimeseriesOptions
     /// <summary>Prefix of every measurement name.</summary>
     public string MeasurementPrefix { get; set; } = "softsensor_";
 
-    /// <summary>SQLite file of the outbox (normally the daemon's store file); table <c>ts_outbox</c>.</summary>
+    /// <summary>SQLite file of the outbox (default: the daemon's store file, <c>store:path</c>); table <c>ts_outbox</c>.</summary>
     public string OutboxPath { get; set; } = "softsensor.db";
 
     /// <summary>Most frames sent in one write.</summary>

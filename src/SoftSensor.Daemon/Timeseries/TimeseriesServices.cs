@@ -13,7 +13,16 @@ internal static class TimeseriesServices
     public static IServiceCollection AddTimeseries(this IServiceCollection services, IConfiguration configuration)
     {
         var section = configuration.GetSection(TimeseriesOptions.Section);
-        services.AddOptions<TimeseriesOptions>().Bind(section).ValidateOnStart();
+        services.AddOptions<TimeseriesOptions>().Bind(section)
+            .PostConfigure(o =>
+            {
+                // The outbox lives in the daemon's store file unless configured elsewhere.
+                if (section["outboxPath"] is null)
+                {
+                    o.OutboxPath = configuration["store:path"] ?? "data/softsensor.db";
+                }
+            })
+            .ValidateOnStart();
         services.TryAddEnumerable(ServiceDescriptor.Singleton<IValidateOptions<TimeseriesOptions>, TimeseriesOptionsValidator>());
         services.TryAddSingleton(TimeProvider.System);
         services.AddMetrics();

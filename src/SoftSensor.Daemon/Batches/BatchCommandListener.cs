@@ -1,0 +1,79 @@
+using System.Buffers;
+using System.Text.Json;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Mqtt;
+
+namespace SoftSensor.Daemon.Batches;
+
+/// <summary>
+/// Batch commands from MQTT: one topic per reactor, <c>{prefix}/{site}/{area}/{reactor}/command/batch</c>,
+/// JSON <c>{"command": "start", "batchId": ..., "initialVolumeL": ..., "inoculumBiomassGPerL": ...,
+/// "inoculumBiomassSigmaGPerL": ..., "initialSubstrateGPerL": ...}</c> or <c>{"command": "end"}</c>.
+/// The outcome goes to <c>.../command/batch/result</c> (not retained): the batch, or every problem.
+/// </summary>
+internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptions<SoftSensorOptions> options) : IHostedService
+{
+    private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web);
+
+    public static string CommandTopic(SoftSensorOptions o, string reactor) => $"{o.Mqtt.TopicPrefix}/{o.Site}/{o.Area}/{reactor}/command/batch";
+
+    public Task StartAsync(CancellationToken cancellationToken)
+    {
+        foreach (var reactor in options.Value.Reactors)
+        {
+            link.Subscribe(CommandTopic(options.Value, reactor.Id), (t, payload) => HandleAsync(reactor.Id, t, payload));
+        }
+
+        return Task.CompletedTask;
+    }
+
+    public Task StopAsync(CancellationToken cancellationToken)
+    {
+        foreach (var reactor in options.Value.Reactors)
+        {
+            link.Unsubscribe(CommandTopic(options.Value, reactor.Id));
+        }
+
+        return Task.CompletedTask;
+    }
+
+    private async ValueTask HandleAsync(string reactor, string topic, ReadOnlySequence<byte> payload)
+    {
+        var reply = Apply(reactor, payload.ToArray());
+        await link.PublishAsync(topic + "/result", JsonSerializer.SerializeToUtf8Bytes(reply, Json), retain: false, CancellationToken.None);
+    }
+
+    private BatchCommandReply Apply(string reactor, byte[] payload)
+    {
+        BatchCommand? command;
+        try
+        {
+            command = JsonSerializer.Deserialize<BatchCommand>(payload, Json);
+        }
+        catch (JsonException e)
+        {
+            return new BatchCommandReply(false, null, [$"payload is not a batch command: {e.Message}"]);
+        }
+
+        switch (command?.Command)
+        {
+            case "start":
+                var (run, problems) = book.Start(reactor, new BatchStart(command.BatchId ?? "", command.InitialVolumeL, command.InoculumBiomassGPerL,
+                    command.InoculumBiomassSigmaGPerL, command.InitialSubstrateGPerL));
+                return new BatchCommandReply(run is not null, run, problems);
+            case "end":
+                var (ended, problem) = book.End(reactor);
+                return new BatchCommandReply(ended is not null, ended, problem is null ? [] : [problem]);
+            default:
+                return new BatchCommandReply(false, null, [$"command is '{command?.Command}' (expected start or end)"]);
+        }
+    }
+}
+
+/// <summary>A batch command as sent on the command topic.</summary>
+internal sealed record BatchCommand(string? Command, string? BatchId, double InitialVolumeL, double InoculumBiomassGPerL, double InoculumBiomassSigmaGPerL, double InitialSubstrateGPerL);
+
+/// <summary>The answer on the result topic.</summary>
+internal sealed record BatchCommandReply(bool Applied, BatchRun? Batch, IReadOnlyList<string> Problems);

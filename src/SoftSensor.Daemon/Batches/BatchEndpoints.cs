@@ -1,0 +1,52 @@
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Http;
+using Microsoft.AspNetCore.Routing;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Configuration;
+
+namespace SoftSensor.Daemon.Batches;
+
+/// <summary>
+/// Batch commands on the status API: <c>GET /api/batches/{reactor}</c> the open batch (404 when none),
+/// <c>POST /api/batches/{reactor}/start</c> with a <see cref="BatchStart"/> JSON body,
+/// <c>POST /api/batches/{reactor}/end</c>. Bad commands answer 400 with every problem.
+/// </summary>
+internal static class BatchEndpoints
+{
+    /// <summary>Registers the batch book (one line in the host's services).</summary>
+    public static IServiceCollection AddBatches(this IServiceCollection services) =>
+        services.AddSingleton<BatchBook>().AddHostedService<BatchCommandListener>();
+
+    public static void MapBatchEndpoints(this IEndpointRouteBuilder app)
+    {
+        app.MapGet("/api/batches/{reactor}", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
+            Known(o.Value, reactor) is { } bad ? bad
+            : book.Current(reactor) is { } run ? Results.Ok(run) : Results.NotFound(new { problems = new[] { $"reactor '{reactor}' has no open batch" } }));
+        app.MapPost("/api/batches/{reactor}/start", (string reactor, BatchStart body, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        {
+            if (Known(o.Value, reactor) is { } bad)
+            {
+                return bad;
+            }
+
+            var (run, problems) = book.Start(reactor, body);
+            return run is null ? Results.BadRequest(new { problems }) : Results.Ok(run);
+        });
+        app.MapPost("/api/batches/{reactor}/end", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        {
+            if (Known(o.Value, reactor) is { } bad)
+            {
+                return bad;
+            }
+
+            var (run, problem) = book.End(reactor);
+            return run is null ? Results.BadRequest(new { problems = new[] { problem } }) : Results.Ok(run);
+        });
+    }
+
+    private static IResult? Known(SoftSensorOptions o, string reactor) =>
+        o.Reactors.Any(r => r.Id == reactor) ? null
+        : Results.NotFound(new { problems = new[] { $"reactor is '{reactor}' (expected one of {string.Join(", ", o.Reactors.Select(r => r.Id))})" } });
+}

@@ -1,0 +1,70 @@
+using System.Globalization;
+using System.Net;
+using System.Text;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Http;
+using Microsoft.AspNetCore.Routing;
+using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Configuration;
+
+namespace SoftSensor.Daemon.Batches;
+
+/// <summary>
+/// The operator's batch page on the status server: <c>GET /batches</c> shows each reactor's open batch
+/// with a start form (initial conditions) and an end button; the forms post to
+/// <c>POST /batches/{reactor}/start</c> and <c>/end</c>, which answer with the page and the outcome.
+/// </summary>
+internal static class BatchForm
+{
+    public static void MapBatchForm(this IEndpointRouteBuilder app)
+    {
+        app.MapGet("/batches", (BatchBook book, IOptions<SoftSensorOptions> o) => Page(book, o.Value, ""));
+        app.MapPost("/batches/{reactor}/start", async (string reactor, HttpRequest request, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        {
+            var form = await request.ReadFormAsync(request.HttpContext.RequestAborted);
+            double N(string key) => double.TryParse(form[key].ToString(), NumberStyles.Float, CultureInfo.InvariantCulture, out var v) ? v : double.NaN;
+            var (run, problems) = book.Start(reactor, new BatchStart(form["batchId"].ToString(), N("initialVolumeL"), N("inoculumBiomassGPerL"), N("inoculumBiomassSigmaGPerL"), N("initialSubstrateGPerL")));
+            return Page(book, o.Value, run is null ? "Refused: " + string.Join("; ", problems) : $"Started batch {run.BatchId} on {reactor}.");
+        });
+        app.MapPost("/batches/{reactor}/end", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        {
+            var (run, problem) = book.End(reactor);
+            return Page(book, o.Value, run is null ? "Refused: " + problem : $"Ended batch {run.BatchId} on {reactor}.");
+        });
+    }
+
+    private static IResult Page(BatchBook book, SoftSensorOptions o, string message)
+    {
+        var h = new StringBuilder("<!doctype html><html><head><meta charset=\"utf-8\"><title>softsensor batches</title></head><body>");
+        h.Append("<h1>Batches</h1><p>Advisory soft sensor: not a safety instrumented system.</p>");
+        if (message.Length > 0)
+        {
+            h.Append("<p id=\"outcome\">").Append(WebUtility.HtmlEncode(message)).Append("</p>");
+        }
+
+        foreach (var r in o.Reactors)
+        {
+            string id = WebUtility.HtmlEncode(r.Id);
+            h.Append("<section><h2>").Append(id).Append("</h2>");
+            if (book.Current(r.Id) is { } run)
+            {
+                h.Append(CultureInfo.InvariantCulture, $"<p>Open batch <b>{WebUtility.HtmlEncode(run.BatchId)}</b> since {run.StartedAt:O}: {run.InitialVolumeL} L, inoculum {run.InoculumBiomassGPerL} ± {run.InoculumBiomassSigmaGPerL} g/L, substrate {run.InitialSubstrateGPerL} g/L.</p>");
+                h.Append("<form method=\"post\" action=\"/batches/").Append(id).Append("/end\"><button>End batch</button></form>");
+            }
+            else
+            {
+                h.Append("<form method=\"post\" action=\"/batches/").Append(id).Append("/start\">");
+                foreach (var (name, label) in new[] { ("batchId", "Batch id"), ("initialVolumeL", "Initial volume, L"), ("inoculumBiomassGPerL", "Inoculum biomass, g/L"), ("inoculumBiomassSigmaGPerL", "Its standard uncertainty, g/L"), ("initialSubstrateGPerL", "Initial substrate, g/L") })
+                {
+                    h.Append("<label>").Append(label).Append(" <input name=\"").Append(name).Append("\"></label><br>");
+                }
+
+                h.Append("<button>Start batch</button></form>");
+            }
+
+            h.Append("</section>");
+        }
+
+        return Results.Content(h.Append("</body></html>").ToString(), "text/html; charset=utf-8");
+    }
+}
