@@ -20,6 +20,12 @@ internal sealed class ReactorOptions
 
     /// <summary>Process/organism model file (JSON) used by the full estimator; empty for off-gas only.</summary>
     public string ModelFile { get; set; } = "";
+
+    /// <summary>Estimator settings (used when <see cref="ModelFile"/> is set; keys as in the replay configuration's estimator section).</summary>
+    public Core.Estimation.EstimatorSettings Estimator { get; set; } = new();
+
+    /// <summary>Which rates besides OUR and CER enter the elemental balance (used when <see cref="ModelFile"/> is set).</summary>
+    public Replay.BalanceConfig Balance { get; set; } = new();
 }
 
 /// <summary>One plant tag of a reactor's tag map.</summary>

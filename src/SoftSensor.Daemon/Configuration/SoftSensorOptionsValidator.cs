@@ -40,6 +40,10 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             }
 
             ValidateGas(errors, key + ":gas", r.Gas);
+            if (!string.IsNullOrWhiteSpace(r.ModelFile))
+            {
+                errors.AddRange(Estimation.EstimatorSetup.Validate(key + ":estimator/balance", r.Estimator, r.Balance));
+            }
             if (r.Tags.Count == 0)
             {
                 errors.Add($"{key}:tags is empty (expected a tag map)");

@@ -40,6 +40,7 @@ internal static class DaemonHost
         // A start failure (e.g. invalid configuration) is reported by DaemonRunner in one line; the host's own stack-trace log would repeat it.
         builder.Logging.AddFilter("Microsoft.Extensions.Hosting.Internal.Host", LogLevel.Critical);
         builder.Services.AddSoftSensorDaemon(builder.Configuration);
+        builder.Services.AddSingleton(new Pipeline.ConfigLocation(settings.ConfigFile is { } config ? Path.GetDirectoryName(Path.GetFullPath(config))! : Directory.GetCurrentDirectory()));
         settings.ConfigureServices?.Invoke(builder.Services);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
         var app = builder.Build();

@@ -51,7 +51,7 @@ internal static class DaemonServices
         // OPC UA: tags with an opcUaNode, and estimates written back (section opcUa); after MQTT.
         services.AddOpcUaAdapter(configuration);
 
-        services.TryAddSingleton<IReactorCycleFactory, OffGasCycleFactory>();
+        services.TryAddSingleton<IReactorCycleFactory, ReactorCycleFactory>();
 
         // Hosted services stop in reverse order: pipelines, then the dispatcher drains, then MQTT says offline.
         services.AddHostedService(sp => sp.GetRequiredService<MqttLink>());

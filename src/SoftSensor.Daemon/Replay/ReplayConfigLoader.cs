@@ -2,7 +2,7 @@ using System.Text.Json;
 using System.Text.Json.Serialization;
 using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Gas;
-using SoftSensor.Core.Stoichiometry;
+using SoftSensor.Daemon.Estimation;
 
 namespace SoftSensor.Daemon.Replay;
 
@@ -95,17 +95,7 @@ internal static class ReplayConfigLoader
 
         var inlet = g.Inlet == "measured" ? InletSource.Measured : InletSource.GasLines;
         var gas = new AlignedGasBalanceSettings(balance, lines, inlet, g.AirCo2Fraction, AnalyserBasis.Dry, double.NaN, TimeSpan.FromSeconds(g.MaxInputAgeS));
-        var b = c.Balance;
-        return new CycleSettings
-        {
-            Gas = gas,
-            Estimator = c.Estimator,
-            SubstrateFromFeed = b.SubstrateFromFeed,
-            SubstrateRelativeSigma = b.SubstrateRelativeSigma,
-            BaseAmmoniaMolPerL = b.BaseAmmoniaMolPerL ?? double.NaN,
-            AmmoniaRelativeSigma = b.AmmoniaRelativeSigma,
-            Alpha = b.Alpha,
-        };
+        return EstimatorSetup.Settings(gas, c.Estimator, c.Balance);
     }
 
     /// <summary>Reads the configuration file and its model and builds the cycle; false with a message naming the file and the key.</summary>
@@ -125,9 +115,8 @@ internal static class ReplayConfigLoader
             return false;
         }
 
-        if (!ModelReader.TryParse(File.ReadAllText(modelPath), out var model, out var modelError))
+        if (!EstimatorSetup.TryLoadModel(modelPath, out var model, out error))
         {
-            error = $"{modelPath}: {modelError}";
             return false;
         }
 

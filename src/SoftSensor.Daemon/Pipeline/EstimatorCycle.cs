@@ -1,0 +1,120 @@
+using SoftSensor.Core.Estimation;
+using SoftSensor.Core.Signals;
+using SoftSensor.Core.Stoichiometry;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Estimation;
+
+namespace SoftSensor.Daemon.Pipeline;
+
+/// <summary>
+/// The full estimator's cycle: the same <see cref="Cycle"/> the replay runs (gas balance, elemental
+/// balance with its consistency test, growth rate, biomass, feed advisory; METHODS.md) on the
+/// aligned inputs, flattened by <see cref="EstimateFrames"/>. Its state (biomass, volume, history)
+/// is checkpointed with <see cref="EstimatorStateCodec"/> so a restart resumes. Offline samples are
+/// not fed to the live cycle.
+/// </summary>
+internal sealed class EstimatorCycle : IReactorCycle
+{
+    private static readonly SignalRole[] EstimatorRoles =
+    [
+        SignalRole.FeedRateLPerH, SignalRole.BaseRateLPerH, SignalRole.WeightKg, SignalRole.DissolvedOxygenPercent,
+    ];
+
+    private readonly Cycle _cycle;
+    private readonly GasInputs _gas;
+    private readonly CycleOutputs _outputs = new();
+    private EstimatorState _state;
+
+    public EstimatorCycle(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings, StoichiometricModel model)
+    {
+        _gas = new GasInputs(reactor, bindings, EstimatorRoles);
+        _cycle = new Cycle(model, EstimatorSetup.Settings(_gas.Settings, reactor.Estimator, reactor.Balance));
+        _state = _cycle.NewState();
+    }
+
+    public CycleOutput Run(AlignedInputs inputs, ReadOnlySpan<InputHealth> health)
+    {
+        _gas.Prepare(inputs);
+        _cycle.Run(inputs, _state, _outputs);
+        var values = EstimateFrames.Values(_outputs);
+        var flags = _gas.FlagsOf(health);
+        for (int i = 0; i < values.Length; i++)
+        {
+            var v = values[i];
+            bool ownCode = v.Quality == SampleQuality.Uncertain && v.StatusCode != EstimateFrames.CodeOf(v.Quality);
+            if (v.Quality != SampleQuality.Good && !ownCode)
+            {
+                values[i] = v with { StatusCode = _gas.Code(flags, v.Quality, health) };
+            }
+        }
+
+        return new CycleOutput(values, _gas.NewestUsed(health));
+    }
+
+    public string? SaveState() => Convert.ToBase64String(EstimatorStateCodec.Encode(_state));
+
+    public void RestoreState(string state)
+    {
+        if (!EstimatorStateCodec.TryDecode(Convert.FromBase64String(state), out var restored, out var error))
+        {
+            throw new FormatException($"estimator checkpoint: {error}");
+        }
+
+        _state = restored!;
+    }
+}
+
+/// <summary>
+/// Makes each reactor's cycle: the <see cref="EstimatorCycle"/> when its <c>modelFile</c> is set,
+/// else the <see cref="OffGasCycle"/>. A relative model path is looked up beside the configuration
+/// file, then from the working folder and the program's folder upwards (as the demo finds its files).
+/// </summary>
+internal sealed class ReactorCycleFactory(ConfigLocation? location = null) : IReactorCycleFactory
+{
+    public IReactorCycle Create(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings)
+    {
+        if (string.IsNullOrWhiteSpace(reactor.ModelFile))
+        {
+            return new OffGasCycle(reactor, bindings);
+        }
+
+        string key = $"reactor '{reactor.Id}' modelFile";
+        string? path = Resolve(reactor.ModelFile);
+        if (path is null)
+        {
+            throw new InvalidOperationException($"{key} is '{reactor.ModelFile}'; expected an existing model file (looked beside the configuration file{(location is null ? string.Empty : $" {location.Folder}")} and upwards from the working folder)");
+        }
+
+        if (!EstimatorSetup.TryLoadModel(path, out var model, out var error))
+        {
+            throw new InvalidOperationException($"{key}: {error}");
+        }
+
+        try
+        {
+            return new EstimatorCycle(reactor, bindings, model!);
+        }
+        catch (ArgumentException e)
+        {
+            throw new InvalidOperationException($"{key} '{path}': {e.Message}", e);
+        }
+    }
+
+    private string? Resolve(string file)
+    {
+        if (Path.IsPathRooted(file))
+        {
+            return File.Exists(file) ? file : null;
+        }
+
+        if (location is not null && File.Exists(Path.Combine(location.Folder, file)))
+        {
+            return Path.GetFullPath(Path.Combine(location.Folder, file));
+        }
+
+        return Demo.DemoFiles.Find(file);
+    }
+}
+
+/// <summary>The folder of the <c>--config</c> file (relative paths in it resolve against it).</summary>
+internal sealed record ConfigLocation(string Folder);
