@@ -24,11 +24,19 @@ internal sealed class DemoVerb : IVerb
         var duration = new Option<string?>("--for") { Description = "Stop after this much simulated time, e.g. 2h, 30m, 90s (default: the scenario's duration)" };
         var data = new Option<string>("--data") { Description = "Folder of the demo's store (demo.db, recreated each run)", DefaultValueFactory = _ => "data" };
         var command = new Command("demo", "Run the demo: embedded broker, virtual reactor in accelerated time, the daemon and its status page") { speed, duration, data };
-        command.SetAction((parse, ct) => RunAsync(parse.GetValue(speed), parse.GetValue(duration), parse.GetValue(data)!, ct));
+        var influx = new Timeseries.InfluxShortcutOptions();
+        influx.AddTo(command);
+        command.SetAction((parse, ct) =>
+        {
+            var influxOverrides = new List<string>();
+            return influx.AppendTo(parse, influxOverrides, Console.Error) is { } bad
+                ? Task.FromResult(bad)
+                : RunAsync(parse.GetValue(speed), parse.GetValue(duration), parse.GetValue(data)!, influxOverrides, ct);
+        });
         return command;
     }
 
-    private static async Task<int> RunAsync(double speed, string? forText, string dataDir, CancellationToken cancellationToken)
+    private static async Task<int> RunAsync(double speed, string? forText, string dataDir, List<string> influxOverrides, CancellationToken cancellationToken)
     {
         if (!(speed is >= 1 and <= 3600))
         {
@@ -69,6 +77,7 @@ internal sealed class DemoVerb : IVerb
         var settings = new DaemonHostSettings
         {
             ConfigFile = config,
+            CommandLine = influxOverrides,
             Overrides = new(StringComparer.OrdinalIgnoreCase)
             {
                 ["mqtt:host"] = broker.Host,
