@@ -10,12 +10,8 @@ internal static class Program
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {
-            foreach (var e in parse.Errors)
-            {
-                await Console.Error.WriteLineAsync("error: " + e.Message);
-            }
-
-            return ExitCodes.BadInput;
+            // One line for the whole parse, however many faults it found (scripts read one line).
+            return CliOutput.BadInput(Console.Error, string.Join("; ", parse.Errors.Select(e => e.Message)));
         }
 
         return await parse.InvokeAsync();

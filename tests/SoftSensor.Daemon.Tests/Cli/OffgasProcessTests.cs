@@ -48,4 +48,16 @@ public class OffgasProcessTests
         Assert.Empty(output);
         Assert.Equal("error: --volume '-3': expected a liquid volume in L above 0", error.TrimEnd('\n'));
     }
+
+    [Fact]
+    public void Offgas_executable_several_unknown_flags_exit_2_with_one_line_naming_each()
+    {
+        var (code, output, error) = Start("offgas", "--air", "10", "--outlet-o2", "19.5", "--outlet-co2", "1.5", "--volume", "10", "--bogus", "1", "--zap", "2");
+
+        Assert.Equal(2, code);
+        Assert.Empty(output);
+        string line = Assert.Single(error.TrimEnd('\n').Split('\n'));
+        Assert.Contains("'--bogus'", line, StringComparison.Ordinal);
+        Assert.Contains("'--zap'", line, StringComparison.Ordinal);
+    }
 }
