@@ -102,6 +102,13 @@ internal sealed class ReactorPipeline
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
+        if (_services.Samples is { } samples)
+        {
+            // Operator inputs go to the estimator here, on the cycle task, so they never race a cycle.
+            Samples.SampleApplier.ApplyPending(samples, Reactor, BatchId, _cycle,
+                state => state is null ? null : new Checkpoint(Reactor, Interlocked.Read(ref _cycles), now, state), _services.Logger);
+        }
+
         long arrival;
         lock (_gate)
         {
