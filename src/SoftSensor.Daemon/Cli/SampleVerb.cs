@@ -48,18 +48,18 @@ internal sealed class SampleVerb : IVerb
             Put("withdrawnMl", p.GetValue(withdrawn));
             Put("analyte", p.GetValue(analyte));
             Put("operator", p.GetValue(who));
-            return BatchVerb.SendAsync(p.GetValue(url)!, $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}", body, Console.Out, Console.Error, ct);
+            return BatchVerb.SendAsync(p.GetValue(url)!, $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}", body, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct);
         });
 
         var batch = new Option<string?>("--batch") { Description = "only this batch's inputs" };
         var list = new Command("list", "List the inputs of a reactor, newest first, with their outcome") { url, reactor, batch };
         list.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!,
-            $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}" + (p.GetValue(batch) is { } b ? "?batch=" + Uri.EscapeDataString(b) : ""), null, Console.Out, Console.Error, ct));
+            $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}" + (p.GetValue(batch) is { } b ? "?batch=" + Uri.EscapeDataString(b) : ""), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
         var id = new Option<long>("--id") { Description = "input id (as add answered)", Required = true };
         var show = new Command("show", "Show one input and its outcome") { url, reactor, id };
-        show.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "samples", p.GetValue(id)), null, Console.Out, Console.Error, ct));
+        show.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "samples", p.GetValue(id)), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
         var corrected = new Command("corrected", "Show the corrected trajectory stored after an input") { url, reactor, id };
-        corrected.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "corrected", p.GetValue(id)), null, Console.Out, Console.Error, ct));
+        corrected.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "corrected", p.GetValue(id)), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
         return new Command("sample", "Offline samples and withdrawals to a running daemon: add, list, show, corrected") { add, list, show, corrected };
     }
 
