@@ -62,6 +62,8 @@ internal sealed class EstimatorCycle : IReactorCycle
 
         _state = restored!;
     }
+
+    public void BeginBatch(in BatchInitialConditions initial) => _state = _cycle.NewState(initial);
 }
 
 /// <summary>
