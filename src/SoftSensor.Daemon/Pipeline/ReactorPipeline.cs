@@ -32,6 +32,7 @@ internal sealed class ReactorPipeline
     private string _stateBatch = string.Empty;
     private long _cycles;
     private long _newestArrival;
+    private long _accepted;
     private volatile bool _waitingForTick;
 
     public ReactorPipeline(ReactorOptions options, IReadOnlyList<TagBinding> bindings, IReactorCycle cycle, IReadOnlyList<ISampleSource> sources, PipelineServices services)
@@ -53,6 +54,9 @@ internal sealed class ReactorPipeline
 
     /// <summary>True while the cycle loop waits for its next tick (lets tests on a fake clock advance it safely).</summary>
     internal bool IsWaitingForTick => _waitingForTick;
+
+    /// <summary>Samples taken into the signal store so far (lets tests wait until a step has arrived).</summary>
+    internal long SamplesAccepted => Interlocked.Read(ref _accepted);
 
     /// <summary>Runs until cancelled, then writes a last checkpoint.</summary>
     public async Task RunAsync(CancellationToken cancellationToken)
@@ -91,6 +95,7 @@ internal sealed class ReactorPipeline
         if (ok)
         {
             Volatile.Write(ref _newestArrival, _services.Time.GetTimestamp());
+            Interlocked.Increment(ref _accepted);
             _services.Metrics.SamplesIn.Add(1, _reactorTag);
         }
         else
