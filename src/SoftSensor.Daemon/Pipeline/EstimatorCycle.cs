@@ -69,6 +69,8 @@ internal sealed class EstimatorCycle : IReactorCycle, Samples.IOfflineInputTarge
 
         _state = restored!;
     }
+
+    public void BeginBatch(in BatchInitialConditions initial) => _state = _cycle.NewState(initial);
 }
 
 /// <summary>

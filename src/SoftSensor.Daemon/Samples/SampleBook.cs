@@ -1,10 +1,9 @@
 using System.Diagnostics.Metrics;
 using Microsoft.Data.Sqlite;
-using Microsoft.Extensions.Options;
 using SoftSensor.Core.Estimation;
-using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Store;
 
 namespace SoftSensor.Daemon.Samples;
 
@@ -30,8 +29,6 @@ internal sealed partial class SampleBook
             biomass_g_per_l REAL, biomass_sigma_g_per_l REAL, integrator_g_per_l REAL, ekf_g_per_l REAL, volume_l REAL,
             PRIMARY KEY (reactor, batch, sample_id, time_ms));
         CREATE INDEX IF NOT EXISTS corrected_by_reactor_time ON corrected_estimates (reactor, time_ms);
-        CREATE TABLE IF NOT EXISTS checkpoints (
-            id INTEGER PRIMARY KEY, reactor TEXT NOT NULL, cycle INTEGER NOT NULL, time_ms INTEGER NOT NULL, state TEXT NOT NULL);
         """;
 
     private const string Columns = "id, reactor, batch, entered_ms, sampled_ms, kind, value_g_per_l, sigma_g_per_l, withdrawn_l, analyte, operator, outcome, detail, resolved_ms, applied_cycle_ms, prior_g_per_l, prior_sigma_g_per_l, posterior_g_per_l, posterior_sigma_g_per_l, payload";
@@ -43,16 +40,11 @@ internal sealed partial class SampleBook
     private readonly Counter<long>? _rejected;
     private readonly Counter<long>? _resolved;
 
-    public SampleBook(IOptions<SoftSensorOptions> options, TimeProvider time, IMeterFactory meters)
-        : this(options.Value.Store.Path, time, meters)
-    {
-    }
-
-    public SampleBook(string storePath, TimeProvider time, IMeterFactory? meters = null)
+    /// <summary>Opens the book in the store's file (the store has created its tables, <c>checkpoints</c> among them).</summary>
+    public SampleBook(SqliteStore store, TimeProvider time, IMeterFactory? meters = null)
     {
         _time = time;
-        string full = Path.GetFullPath(storePath);
-        Directory.CreateDirectory(Path.GetDirectoryName(full)!);
+        string full = store.Path;
         _connectionString = new SqliteConnectionStringBuilder { DataSource = full, Pooling = true, DefaultTimeout = 5 }.ToString();
         using (var c = Open())
         {
@@ -172,11 +164,12 @@ internal sealed partial class SampleBook
             {
                 using var cp = c.CreateCommand();
                 cp.Transaction = tx;
-                cp.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state) VALUES ($r, $c, $t, $s)";
+                cp.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch) VALUES ($r, $c, $t, $s, $b)";
                 cp.Parameters.AddWithValue("$r", checkpoint.Reactor);
                 cp.Parameters.AddWithValue("$c", checkpoint.Cycle);
                 cp.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
                 cp.Parameters.AddWithValue("$s", checkpoint.State);
+                cp.Parameters.AddWithValue("$b", (object?)checkpoint.Batch ?? DBNull.Value);
                 cp.ExecuteNonQuery();
             }
 
