@@ -7,6 +7,9 @@
 //   OPCUA_TOKEN_LIFETIME_MS  longest secure-channel token lifetime the server grants (default 600000)
 //   OPCUA_USER, OPCUA_PASSWORD  when set, a user-name token policy (SecurityPolicy None) is added
 //   OPCUA_BULK_COUNT         number of variables under Objects/Reactor1/Bulk (default 40, for BrowseNext)
+//   OPCUA_PLANT_TAGS         comma-separated tag names: writable Double variables under Objects/Plant
+//                            (node id s=Plant.<name>), BadWaitingForInitialData until a client writes
+//                            them (value, status and source timestamp as written); no timer touches them
 // Prints "listening PORT" on stdout once the endpoint accepts connections; stops on SIGTERM/SIGINT.
 "use strict";
 const opcua = require("node-opcua");
@@ -15,6 +18,7 @@ const port = parseInt(process.argv[2] || "4840", 10);
 const updateMs = parseInt(process.env.OPCUA_UPDATE_MS || "100", 10);
 const tokenLifetimeMs = parseInt(process.env.OPCUA_TOKEN_LIFETIME_MS || "600000", 10);
 const bulkCount = parseInt(process.env.OPCUA_BULK_COUNT || "40", 10);
+const plantTags = (process.env.OPCUA_PLANT_TAGS || "").split(",").filter((t) => t !== "");
 const user = process.env.OPCUA_USER || "";
 const password = process.env.OPCUA_PASSWORD || "";
 const namespaceUri = "urn:softsensor:peer:reactor";
@@ -84,6 +88,21 @@ async function main() {
       dataType: "Int32",
       value: { dataType: opcua.DataType.Int32, value: i },
     });
+  }
+
+  if (plantTags.length > 0) {
+    const plant = ns.addObject({ organizedBy: addressSpace.rootFolder.objects, browseName: "Plant", nodeId: "s=Plant" });
+    for (const name of plantTags) {
+      const v = ns.addVariable({
+        componentOf: plant,
+        browseName: name,
+        nodeId: "s=Plant." + name,
+        dataType: "Double",
+        accessLevel: "CurrentRead | CurrentWrite",
+        userAccessLevel: "CurrentRead | CurrentWrite",
+      });
+      v.setValueFromSource({ dataType: opcua.DataType.Null }, opcua.StatusCodes.BadWaitingForInitialData);
+    }
   }
 
   const started = Date.now();

@@ -14,13 +14,22 @@ internal sealed class AlarmOptions
 
     public List<string> RuleFiles { get; set; } = [];
 
-    /// <summary>The files named, folders expanded (name order).</summary>
-    public IReadOnlyList<string> ResolveFiles() =>
-        [.. RuleFiles.SelectMany<string, string>(p => Directory.Exists(p) ? Directory.GetFiles(p, "*.json").Order(StringComparer.Ordinal) : [p])];
+    /// <summary>
+    /// The files named, folders expanded (name order). A relative path that does not exist from the
+    /// working folder is taken beside the configuration file, as <c>check</c> resolves it.
+    /// </summary>
+    public IReadOnlyList<string> ResolveFiles(string? configFolder = null) =>
+        [.. RuleFiles.Select(p => Beside(p, configFolder))
+            .SelectMany<string, string>(p => Directory.Exists(p) ? Directory.GetFiles(p, "*.json").Order(StringComparer.Ordinal) : [p])];
+
+    private static string Beside(string path, string? configFolder) =>
+        configFolder is null || Path.IsPathRooted(path) || File.Exists(path) || Directory.Exists(path)
+            ? path
+            : Path.GetFullPath(Path.Combine(configFolder, path));
 }
 
 /// <summary>Checks at start that every rule file reads and every rule is valid (one message listing all).</summary>
-internal sealed class AlarmOptionsValidator : IValidateOptions<AlarmOptions>
+internal sealed class AlarmOptionsValidator(Pipeline.ConfigLocation? location = null) : IValidateOptions<AlarmOptions>
 {
     public ValidateOptionsResult Validate(string? name, AlarmOptions options)
     {
@@ -29,7 +38,7 @@ internal sealed class AlarmOptionsValidator : IValidateOptions<AlarmOptions>
             return ValidateOptionsResult.Success;
         }
 
-        var set = AlarmRuleFile.Load(options.ResolveFiles());
+        var set = AlarmRuleFile.Load(options.ResolveFiles(location?.Folder));
         return set.Errors.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(set.Errors);
     }
 }
@@ -41,7 +50,8 @@ internal static class AlarmServices
     {
         var section = configuration.GetSection(AlarmOptions.Section);
         services.AddOptions<AlarmOptions>().Bind(section).ValidateOnStart();
-        services.TryAddEnumerable(ServiceDescriptor.Singleton<IValidateOptions<AlarmOptions>, AlarmOptionsValidator>());
+        services.TryAddEnumerable(ServiceDescriptor.Singleton<IValidateOptions<AlarmOptions>, AlarmOptionsValidator>(
+            sp => new AlarmOptionsValidator(sp.GetService<Pipeline.ConfigLocation>())));
         if ((section.Get<AlarmOptions>() ?? new AlarmOptions()).RuleFiles.Count == 0)
         {
             return services;
@@ -51,7 +61,7 @@ internal static class AlarmServices
         services.AddSingleton(_ => new AlarmJournal(journalPath));
         services.AddSingleton(sp =>
         {
-            var files = sp.GetRequiredService<IOptions<AlarmOptions>>().Value.ResolveFiles();
+            var files = sp.GetRequiredService<IOptions<AlarmOptions>>().Value.ResolveFiles(sp.GetService<Pipeline.ConfigLocation>()?.Folder);
             var set = AlarmRuleFile.Load(files);
             if (set.Errors.Count > 0)
             {
@@ -60,7 +70,7 @@ internal static class AlarmServices
 
             AlarmLog.Loaded(sp.GetRequiredService<ILoggerFactory>().CreateLogger(typeof(AlarmServices).FullName!), set.Rules.Count, string.Join(", ", files));
             var journal = sp.GetRequiredService<AlarmJournal>();
-            return new AlarmEngine(set, journal.Statuses);
+            return new AlarmEngine(set, journal.Statuses, journal.BatchOf);
         });
         services.AddSingleton<AlarmInputSignals>();
         services.AddSingleton<IAlarmSignalSource>(sp => sp.GetRequiredService<AlarmInputSignals>());

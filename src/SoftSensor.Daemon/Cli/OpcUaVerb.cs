@@ -11,7 +11,9 @@ namespace SoftSensor.Daemon.Cli;
 /// <c>softsensor opcua browse --endpoint URL [--path P] [--json]</c>: lists the children of a node
 /// of an OPC UA server (browse name, node id as <c>nsu=...;s=...</c>, node class, data type, value)
 /// so that an engineer can build the tag map. The path is slash-separated browse names from the
-/// root, e.g. <c>Objects/Reactor1</c>; without it the Objects folder is listed.
+/// root, e.g. <c>Objects/Reactor1</c>; without it the Objects folder is listed. Exit codes: 0 listed;
+/// 1 the server cannot be reached or refused (one stderr line naming the endpoint); 2 bad input
+/// (a malformed endpoint URL, a path that does not exist, a missing password).
 /// </summary>
 internal sealed class OpcUaVerb : IVerb
 {
@@ -22,19 +24,22 @@ internal sealed class OpcUaVerb : IVerb
         var json = new Option<bool>("--json") { Description = "Write one JSON document instead of a table" };
         var user = new Option<string?>("--user") { Description = "User name (the password is read from the environment variable SOFTSENSOR_OPCUA_PASSWORD)" };
         var browse = new Command("browse", "List the children of a node: browse name, node id, node class, data type, value.") { endpoint, path, json, user };
-        browse.SetAction((parse, ct) => BrowseAsync(parse.GetValue(endpoint)!, parse.GetValue(path)!, parse.GetValue(json), parse.GetValue(user), ct));
+        browse.SetAction((parse, ct) => BrowseAsync(new BrowseRequest(parse.GetValue(endpoint)!, parse.GetValue(path)!, parse.GetValue(json), parse.GetValue(user)), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, ct));
         return new Command("opcua", "Talk to an OPC UA server (SecurityPolicy None only, for now).") { browse };
     }
 
-    private static async Task<int> BrowseAsync(string endpointUrl, string path, bool json, string? user, CancellationToken cancellationToken)
+    private sealed record BrowseRequest(string EndpointUrl, string Path, bool Json, string? User);
+
+    private static async Task<int> BrowseAsync(BrowseRequest request, TextWriter output, TextWriter error, CancellationToken cancellationToken)
     {
+        var (endpointUrl, path, json, user) = request;
         try
         {
             EndpointAddress.Parse(endpointUrl);
         }
         catch (FormatException e)
         {
-            return CliOutput.BadInput(Console.Error, $"--endpoint: {e.Message}");
+            return CliOutput.BadInput(error, $"--endpoint: {e.Message}");
         }
 
         var identity = UserIdentity.Anonymous;
@@ -43,7 +48,7 @@ internal sealed class OpcUaVerb : IVerb
             string? password = Environment.GetEnvironmentVariable("SOFTSENSOR_OPCUA_PASSWORD");
             if (password is null)
             {
-                return CliOutput.BadInput(Console.Error, $"--user '{user}': set the password in the environment variable SOFTSENSOR_OPCUA_PASSWORD");
+                return CliOutput.BadInput(error, $"--user '{user}': set the password in the environment variable SOFTSENSOR_OPCUA_PASSWORD");
             }
 
             identity = UserIdentity.UserName(user, password);
@@ -57,37 +62,37 @@ internal sealed class OpcUaVerb : IVerb
             var target = await BrowsePathResolver.ResolveAsync(connection.Session, path, cancellationToken);
             if (!target.IsFound)
             {
-                return CliOutput.BadInput(Console.Error, $"--path '{path}': {target.Error}");
+                return CliOutput.BadInput(error, $"--path '{path}': {target.Error}");
             }
 
             var children = await NodeBrowser.ListChildrenAsync(connection.Session, target.Node!, cancellationToken);
             var nodeId = connection.Session.Namespaces.ToExpanded(target.Node!).ToString();
             if (json)
             {
-                CliOutput.WriteJson(Console.Out, new BrowseListing(endpointUrl, path, nodeId, [.. children.Select(BrowseListingRow.From)]));
+                CliOutput.WriteJson(output, new BrowseListing(endpointUrl, path, nodeId, [.. children.Select(BrowseListingRow.From)]));
             }
             else
             {
-                WriteTable(path, nodeId, children);
+                WriteTable(output, path, nodeId, children);
             }
 
             return ExitCodes.Ok;
         }
         catch (ServiceResultException e)
         {
-            await Console.Error.WriteLineAsync($"error: {endpointUrl}: {e.Message}");
+            await error.WriteLineAsync($"error: {endpointUrl}: {e.Message}".ReplaceLineEndings(" | "));
             return ExitCodes.Failure;
         }
     }
 
-    private static void WriteTable(string path, string nodeId, IReadOnlyList<BrowsedNode> children)
+    private static void WriteTable(TextWriter output, string path, string nodeId, IReadOnlyList<BrowsedNode> children)
     {
-        Console.Out.WriteLine($"{path} ({nodeId}): {children.Count} children");
-        Console.Out.WriteLine($"{"browse name",-28} {"class",-13} {"data type",-14} {"value",-24} node id");
+        output.WriteLine($"{path} ({nodeId}): {children.Count} children");
+        output.WriteLine($"{"browse name",-28} {"class",-13} {"data type",-14} {"value",-24} node id");
         foreach (var c in children)
         {
             string value = c.Value is null ? string.Empty : c.Value.Status.IsGood ? c.Value.Value.ToString() : $"{c.Value.Value} [{c.Value.Status}]";
-            Console.Out.WriteLine($"{c.BrowseName,-28} {c.NodeClass,-13} {c.DataType ?? string.Empty,-14} {value,-24} {c.NodeId}");
+            output.WriteLine($"{c.BrowseName,-28} {c.NodeClass,-13} {c.DataType ?? string.Empty,-14} {value,-24} {c.NodeId}");
         }
     }
 

@@ -10,8 +10,6 @@ namespace SoftSensor.Daemon.Configuration;
 /// </summary>
 internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<SoftSensorOptions>
 {
-    
-
     public ValidateOptionsResult Validate(string? name, SoftSensorOptions options)
     {
         var errors = new List<string>();
@@ -62,6 +60,7 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
         }
 
         ValidateMqtt(errors, options.Mqtt);
+        ValidateOpcUa(errors, options);
         if (string.IsNullOrWhiteSpace(options.Store.Path))
         {
             errors.Add($"store:path is empty (expected a file path)");

@@ -10,7 +10,4 @@ internal static partial class OpcUaLog
 
     [LoggerMessage(EventId = 4401, Level = LogLevel.Warning, Message = "OPC UA write-back of {Estimate} for {Reactor} to {Node} failed: {Status}")]
     public static partial void WriteFailed(ILogger logger, string reactor, string estimate, string node, string status);
-
-    [LoggerMessage(EventId = 4402, Level = LogLevel.Warning, Message = "OPC UA tags of reactor {Reactor} configured but opcUa:endpoint is empty; they are not read")]
-    public static partial void NoEndpoint(ILogger logger, string reactor);
 }

@@ -16,6 +16,10 @@ namespace SoftSensor.Daemon.OpcUa;
 /// reconnects by itself), each data change scaled to the role's unit and written as a sample with
 /// the quality of its status code (Part 4 §7.39) and the code kept. A change without a numeric
 /// value (a Bad status alone) is counted and dropped: the tag then goes stale in the signal store.
+/// Items use the trigger StatusValueTimestamp (Part 4 §7.22.2), so a reading the server refreshes
+/// with an unchanged value still arrives and keeps the tag fresh. The link itself (time-outs,
+/// keep-alive, back-off) runs on real time, like the MQTT link, even when the process clock is
+/// scaled (demo) or stepped (tests); <paramref name="time"/> stamps a change that has no timestamp.
 /// </summary>
 internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IReadOnlyList<TagBinding> bindings, DaemonMetrics metrics, TimeProvider time, ILogger logger) : ISampleSource
 {
@@ -31,9 +35,10 @@ internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IR
             QueueSize = options.QueueSize,
             DeadbandType = options.AbsoluteDeadband > 0 ? DeadbandType.Absolute : DeadbandType.None,
             DeadbandValue = options.AbsoluteDeadband,
+            Trigger = DataChangeTrigger.StatusValueTimestamp,
         };
         var nodes = bindings.Select((b, i) => new MonitoredNode(i, new NodeReference(b.OpcUaNode), item)).ToList();
-        var client = OpcUaClientFactory.Create(options, nodes, (change, ct) => OnChangeAsync(change, samples, ct), time, logger);
+        var client = OpcUaClientFactory.Create(options, nodes, (change, ct) => OnChangeAsync(change, samples, ct), TimeProvider.System, logger);
         await client.RunAsync(cancellationToken);
     }
 
@@ -58,17 +63,16 @@ internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IR
     }
 }
 
-/// <summary>Makes an <see cref="OpcUaSampleSource"/> for every reactor with OPC UA tags, when an endpoint is configured.</summary>
+/// <summary>
+/// Makes an <see cref="OpcUaSampleSource"/> for every reactor with OPC UA tags. A tag with an
+/// <c>opcUaNode</c> and no <c>opcUa:endpoint</c> is refused by the validator at start, so an empty
+/// endpoint here means the reactor has no OPC UA tags.
+/// </summary>
 internal sealed class OpcUaSampleSourceFactory(IOptions<OpcUaOptions> options, DaemonMetrics metrics, TimeProvider time, ILogger<OpcUaSampleSource> logger) : ISampleSourceFactory
 {
     public ISampleSource? Create(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings)
     {
         var opcua = bindings.Where(b => b.OpcUaNode.Length > 0).ToList();
-        if (opcua.Count > 0 && options.Value.Endpoint.Length == 0)
-        {
-            OpcUaLog.NoEndpoint(logger, reactor.Id);
-        }
-
         return opcua.Count == 0 || options.Value.Endpoint.Length == 0 ? null : new OpcUaSampleSource(reactor.Id, options.Value, opcua, metrics, time, logger);
     }
 }

@@ -12,7 +12,11 @@ namespace SoftSensor.Daemon.Pipeline;
 /// One reactor: its sources write samples into a bounded channel, one task moves them into the
 /// signal store, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
 /// with the aligned inputs; the frame goes to the dispatcher and the status board. The estimator
-/// state is checkpointed every N cycles and on stop.
+/// state is checkpointed every N cycles and on stop, with the batch it belongs to.
+/// Batches: at each cycle the pipeline reads the reactor's open batch
+/// (<see cref="Batches.BatchBook.Current"/>); when it is not the batch the estimator state belongs
+/// to, it calls <see cref="IReactorCycle.BeginBatch"/> with the batch's initial conditions before
+/// the cycle runs, and checkpoints right after it. A checkpoint of another batch is not restored.
 /// </summary>
 internal sealed class ReactorPipeline
 {
@@ -25,8 +29,10 @@ internal sealed class ReactorPipeline
     private readonly InputHealth[] _health;
     private readonly Lock _gate = new();
     private readonly KeyValuePair<string, object?> _reactorTag;
+    private string _stateBatch = string.Empty;
     private long _cycles;
     private long _newestArrival;
+    private long _accepted;
     private volatile bool _waitingForTick;
 
     public ReactorPipeline(ReactorOptions options, IReadOnlyList<TagBinding> bindings, IReactorCycle cycle, IReadOnlyList<ISampleSource> sources, PipelineServices services)
@@ -43,11 +49,14 @@ internal sealed class ReactorPipeline
     /// <summary>The reactor id.</summary>
     public string Reactor => _options.Id;
 
-    /// <summary>The open batch's id, else the configured one.</summary>
-    private string BatchId => _services.Batches?.Current(Reactor)?.BatchId ?? _options.BatchId;
+    /// <summary>The operator batch the estimator state belongs to (empty before the first batch).</summary>
+    public string StateBatch => Volatile.Read(ref _stateBatch);
 
     /// <summary>True while the cycle loop waits for its next tick (lets tests on a fake clock advance it safely).</summary>
     internal bool IsWaitingForTick => _waitingForTick;
+
+    /// <summary>Samples taken into the signal store so far (lets tests wait until a step has arrived).</summary>
+    internal long SamplesAccepted => Interlocked.Read(ref _accepted);
 
     /// <summary>Runs until cancelled, then writes a last checkpoint.</summary>
     public async Task RunAsync(CancellationToken cancellationToken)
@@ -86,6 +95,7 @@ internal sealed class ReactorPipeline
         if (ok)
         {
             Volatile.Write(ref _newestArrival, _services.Time.GetTimestamp());
+            Interlocked.Increment(ref _accepted);
             _services.Metrics.SamplesIn.Add(1, _reactorTag);
         }
         else
@@ -102,6 +112,16 @@ internal sealed class ReactorPipeline
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
+        var open = _services.Batches?.Current(Reactor);
+        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
+        string batchId = open?.BatchId ?? _options.BatchId;
+        if (_services.Samples is { } samples)
+        {
+            // Operator inputs go to the estimator here, on the cycle task (after a batch start reset it), so they never race a cycle.
+            Samples.SampleApplier.ApplyPending(samples, Reactor, batchId, _cycle,
+                state => state is null ? null : new Checkpoint(Reactor, Interlocked.Read(ref _cycles), now, state, StateBatch), _services.Logger);
+        }
+
         long arrival;
         lock (_gate)
         {
@@ -109,13 +129,13 @@ internal sealed class ReactorPipeline
             arrival = Volatile.Read(ref _newestArrival);
         }
 
-        var frame = Compute(now);
+        var frame = Compute(now, batchId);
         long n = Interlocked.Increment(ref _cycles);
         _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);
         _services.Metrics.Cycles.Add(1, _reactorTag);
         _services.Metrics.CycleSeconds.Record(Stopwatch.GetElapsedTime(start).TotalSeconds, _reactorTag);
-        if (n % _services.CheckpointEveryCycles == 0)
+        if (began || n % _services.CheckpointEveryCycles == 0)
         {
             await CheckpointAsync(cancellationToken);
         }
@@ -123,7 +143,26 @@ internal sealed class ReactorPipeline
         return frame;
     }
 
-    private EstimateFrame Compute(DateTimeOffset now)
+    private bool BeginBatch(Batches.BatchRun open)
+    {
+        var initial = open.Initial;
+        try
+        {
+            _cycle.BeginBatch(initial);
+            PipelineLog.BatchBegan(_services.Logger, Reactor, open.BatchId, initial.VolumeL, initial.BiomassGPerL, initial.BiomassSigmaGPerL, initial.SubstrateGPerL);
+        }
+        catch (ArgumentException e)
+        {
+            // The batch book validates every start; a failure here is a programming error. The batch keeps
+            // running on the previous state rather than retrying every cycle.
+            PipelineLog.BatchBeginFailed(_services.Logger, Reactor, open.BatchId, e.Message);
+        }
+
+        Volatile.Write(ref _stateBatch, open.BatchId);
+        return true;
+    }
+
+    private EstimateFrame Compute(DateTimeOffset now, string batchId)
     {
         try
         {
@@ -135,14 +174,14 @@ internal sealed class ReactorPipeline
             }
 
             var sourceTime = output.SourceTime == default ? now : output.SourceTime;
-            return new EstimateFrame(Reactor, BatchId, sourceTime, quality, output.Values);
+            return new EstimateFrame(Reactor, batchId, sourceTime, quality, output.Values);
         }
         catch (Exception e) when (e is ArithmeticException or InvalidOperationException or ArgumentException)
         {
             // A cycle reports everyday failures as results; an exception here is a programming or model
             // error. Publish a Bad frame rather than stop the reactor's pipeline, and log it.
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
-            return new EstimateFrame(Reactor, BatchId, now, SampleQuality.Bad, []);
+            return new EstimateFrame(Reactor, batchId, now, SampleQuality.Bad, []);
         }
     }
 
@@ -192,7 +231,8 @@ internal sealed class ReactorPipeline
         }
     }
 
-    private async Task RestoreAsync(CancellationToken cancellationToken)
+    /// <summary>Restores the newest checkpoint when it belongs to the open batch (RunAsync does it first; internal for tests).</summary>
+    internal async Task RestoreAsync(CancellationToken cancellationToken)
     {
         if (_services.Checkpoints is not { } store)
         {
@@ -205,9 +245,17 @@ internal sealed class ReactorPipeline
             return;
         }
 
+        var open = _services.Batches?.Current(Reactor);
+        if (!BelongsToOpenBatch(checkpoint, open))
+        {
+            PipelineLog.CheckpointOfOtherBatch(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Batch ?? "(unrecorded)", open?.BatchId ?? "(none)");
+            return;
+        }
+
         try
         {
             _cycle.RestoreState(checkpoint.State);
+            Volatile.Write(ref _stateBatch, open?.BatchId ?? string.Empty);
             Interlocked.Exchange(ref _cycles, checkpoint.Cycle);
             PipelineLog.Restored(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Time);
         }
@@ -217,6 +265,16 @@ internal sealed class ReactorPipeline
         }
     }
 
+    /// <summary>
+    /// A checkpoint resumes the open batch only when it was written in it (or, with no batch open, outside
+    /// any batch); one written before batches were recorded counts when the open batch had already started.
+    /// </summary>
+    private static bool BelongsToOpenBatch(Checkpoint checkpoint, Batches.BatchRun? open) => checkpoint.Batch switch
+    {
+        null => open is null || open.StartedAt <= checkpoint.Time,
+        var batch => batch == (open?.BatchId ?? string.Empty),
+    };
+
     private async ValueTask CheckpointAsync(CancellationToken cancellationToken)
     {
         if (_services.Checkpoints is not { } store || _cycle.SaveState() is not { } state)
@@ -224,6 +282,7 @@ internal sealed class ReactorPipeline
             return;
         }
 
-        await store.WriteCheckpointAsync(new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state), cancellationToken);
+        var checkpoint = new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state, StateBatch);
+        await store.WriteCheckpointAsync(checkpoint, cancellationToken);
     }
 }

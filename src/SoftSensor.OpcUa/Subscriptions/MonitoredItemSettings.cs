@@ -6,6 +6,8 @@ namespace SoftSensor.OpcUa.Subscriptions;
 /// What the client asks of one monitored item (Part 4 §5.12.1): the sampling interval, the queue
 /// size at the server and an optional deadband (absolute in the value's unit, or percent of its
 /// EURange; Part 4 §7.22.2). A negative sampling interval means "the publishing interval".
+/// <see cref="Trigger"/> StatusValueTimestamp also reports a new source timestamp with an unchanged
+/// value (a reading refreshed at the source); the default StatusValue reports changes only.
 /// </summary>
 public sealed record MonitoredItemSettings
 {
@@ -17,8 +19,10 @@ public sealed record MonitoredItemSettings
 
     public double DeadbandValue { get; init; }
 
-    /// <summary>The filter to send, or null when none is needed.</summary>
-    public DataChangeFilter? Filter => DeadbandType == DeadbandType.None
+    public DataChangeTrigger Trigger { get; init; } = DataChangeTrigger.StatusValue;
+
+    /// <summary>The filter to send, or null when the server's default (StatusValue, no deadband) is asked for.</summary>
+    public DataChangeFilter? Filter => DeadbandType == DeadbandType.None && Trigger == DataChangeTrigger.StatusValue
         ? null
-        : new DataChangeFilter(DataChangeTrigger.StatusValue, DeadbandType, DeadbandValue);
+        : new DataChangeFilter(Trigger, DeadbandType, DeadbandValue);
 }

@@ -62,4 +62,48 @@ public class SoftSensorOptionsValidatorTests
         var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
         Assert.Equal("reactors:0:gas:inlet is 'measured' (expected tags with roles InletO2Percent and InletCo2Percent)", result.FailureMessage);
     }
+
+    [Fact]
+    public void Validate_opcUaNode_without_an_endpoint_names_the_tag_key_and_opcUa_endpoint()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["reactors:0:tags:qi201:topic"] = "";
+        keys["reactors:0:tags:qi201:opcUaNode"] = "Objects/Reactor1/OffgasO2";
+        keys["opcUa:writeBack:r1:our"] = "Objects/Reactor1/Estimates/OUR";
+
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+
+        Assert.Equal(
+            "reactors:0:tags:qi201:opcUaNode is 'Objects/Reactor1/OffgasO2' (expected opcUa:endpoint to be set, e.g. opc.tcp://10.0.0.5:4840: no OPC UA server is configured to read it from); "
+            + "opcUa:writeBack:r1:our is 'Objects/Reactor1/Estimates/OUR' (expected opcUa:endpoint to be set: no OPC UA server is configured to write it to)",
+            result.FailureMessage);
+    }
+
+    [Fact]
+    public void Validate_opcUa_section_bad_endpoint_and_unknown_write_back_reactor_name_their_keys()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["reactors:0:tags:qi201:topic"] = "";
+        keys["reactors:0:tags:qi201:opcUaNode"] = "nsu=urn:plant:reactors;s=R1.QI201";
+        keys["opcUa:endpoint"] = "http://10.0.0.5:4840";
+        keys["opcUa:writeBack:r7:our"] = "Objects/HMI/R7/OUR";
+
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+
+        Assert.Equal(
+            "opcUa:endpoint is 'http://10.0.0.5:4840' (expected opc.tcp://host[:port][/path]); "
+            + "opcUa:writeBack:r7 names reactor 'r7' (expected the id of a configured reactor: r1)",
+            result.FailureMessage);
+    }
+
+    [Fact]
+    public void Validate_opcUaNode_with_an_endpoint_succeeds()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["reactors:0:tags:qi201:topic"] = "";
+        keys["reactors:0:tags:qi201:opcUaNode"] = "Objects/Reactor1/OffgasO2";
+        keys["opcUa:endpoint"] = "opc.tcp://127.0.0.1:4840/softsensor";
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+        Assert.True(result.Succeeded, result.FailureMessage);
+    }
 }

@@ -65,7 +65,7 @@ public sealed class OpcUaAdapterTests(OpcUaPeerFixture peer) : IClassFixture<Opc
             Endpoint = server.EndpointUrl,
             WriteBack = new() { ["r1"] = new() { [EstimateNames.Our] = Ns + "s=Reactor1.Estimates.OUR", [EstimateNames.Rq] = "Objects/Reactor1/Estimates/RQ" } },
         });
-        var link = new OpcUaWriteBackLink(options, TimeProvider.System, NullLogger<OpcUaWriteBackLink>.Instance);
+        var link = new OpcUaWriteBackLink(options, NullLogger<OpcUaWriteBackLink>.Instance);
         var sink = new OpcUaEstimateSink(options, link, metrics, NullLogger<OpcUaEstimateSink>.Instance);
         using var cts = new CancellationTokenSource();
         await link.StartAsync(cts.Token);
