@@ -123,6 +123,11 @@ public sealed class OfflineSampleEndToEndTests(MosquittoFixture broker, Xunit.Ab
         Assert.Equal(xPosterior, corrected.RootElement[0].GetProperty("biomassGPerL").GetDouble(), 1e-9);
         using var trends = JsonDocument.Parse(await http.GetStringAsync(new Uri("/api/trends?reactor=r1", UriKind.Relative)));
         Assert.Equal(31, trends.RootElement.GetProperty("correctedBiomass").GetProperty("t").GetArrayLength());
+
+        // As a browser shows it: the biomass trend carries the corrected trajectory as its own (dashed) line.
+        string dom = await HeadlessChromium.DumpDomAsync(daemon.StatusAddress + "/");
+        Assert.Contains("class=\"corrected\"", dom, StringComparison.Ordinal);
+        Assert.Contains("dashed: corrected by offline samples", dom, StringComparison.Ordinal);
     }
 
     private static Task Until(Func<bool> condition, string what) => EstimatorDaemonRig.Until(condition, what);
