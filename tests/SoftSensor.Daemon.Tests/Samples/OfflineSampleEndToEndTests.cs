@@ -25,52 +25,41 @@ namespace SoftSensor.Daemon.Tests.Samples;
 /// </summary>
 public sealed class OfflineSampleEndToEndTests(MosquittoFixture broker, Xunit.Abstractions.ITestOutputHelper output) : IClassFixture<MosquittoFixture>
 {
-    private static readonly TimeSpan Period = TimeSpan.FromSeconds(10);
-    private static readonly TimeSpan Wait = TimeSpan.FromSeconds(10);
+    private static readonly TimeSpan Wait = EstimatorDaemonRig.Wait;
 
     [Fact]
     public async Task DcwSample_dated_in_the_past_pulls_biomass_by_the_Kalman_gain_and_the_corrected_trajectory_is_stored_beside_the_history()
     {
-        string demo = DemoFiles.Find(DemoFiles.Config) ?? throw new FileNotFoundException(DemoFiles.Config);
-        var scenario = ScenarioLoader.Load(DemoFiles.Find(DemoFiles.Scenario) ?? throw new FileNotFoundException(DemoFiles.Scenario));
-        var sim = VirtualReactor.Create(scenario, scenario.Seed);
-        var clock = new FakeTimeProvider(sim.Time);
-        var config = Flatten(demo);
-        config["site"] = "pilot";
-        config["area"] = "offline-e2e";
-        config["mqtt:port"] = broker.Port.ToString(CultureInfo.InvariantCulture);
-        config["mqtt:clientId"] = "offline-e2e";
-        config["reactors:0:modelFile"] = Path.Combine(Path.GetDirectoryName(demo)!, config["reactors:0:modelFile"]!);
-        config.Remove("store:path");
-        config.Remove("status:url");
+        string dir = Directory.CreateTempSubdirectory("softsensor-offline-e2e-").FullName;
+        try
+        {
+            await RunAsync(Path.Combine(dir, "store.db"));
+        }
+        finally
+        {
+            Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+            Directory.Delete(dir, recursive: true);
+        }
+    }
 
-        await using var daemon = await TestDaemon.StartAsync(config, s => s.AddSingleton<TimeProvider>(clock));
-        await using var client = await TestMqttClient.ConnectAsync(broker.Port, "offline-e2e-client");
-        string commands = "softsensor/pilot/offline-e2e/r1/command";
-        await client.SubscribeAsync(commands + "/+/result");
-        var link = daemon.Get<MqttLink>();
-        await Until(() => link.IsSubscribed(commands + "/batch") && link.IsSubscribed(commands + "/sample"), "command topics subscribed");
-        var pipeline = daemon.Get<PipelineSupervisor>().Pipelines[0];
-        var board = daemon.Get<StatusBoard>();
+    private async Task RunAsync(string storePath)
+    {
+        await using var rig = new EstimatorDaemonRig(broker.Port, "offline-e2e", storePath);
+        await rig.StartAsync();
+        var (daemon, client, board, commands, scenario) = (rig.Daemon, rig.Client, rig.Daemon.Get<StatusBoard>(), rig.Commands, rig.Scenario);
 
         // Batch start over MQTT with the initial conditions (inoculum 0.3 ± 0.05 g/L in 30 L, invented demo values).
         await client.PublishAsync(commands + "/batch", """{"command":"start","batchId":"gly-e2e-1","initialVolumeL":30,"inoculumBiomassGPerL":0.3,"inoculumBiomassSigmaGPerL":0.05,"initialSubstrateGPerL":15}""");
         await client.WaitForAsync((t, p) => t == commands + "/batch/result" && p.Contains("\"applied\":true", StringComparison.Ordinal), Wait, "batch started");
 
         // 90 cycles of 10 s (15 min of the batch), each after the simulator's tags of that instant reached the daemon.
-        var mapped = ((IEnumerable<KeyValuePair<string, string?>>)config).Where(kv => kv.Key.EndsWith(":topic", StringComparison.OrdinalIgnoreCase)).Select(kv => kv.Value!).ToHashSet(StringComparer.Ordinal);
-        long published = 0;
         double truthAt600 = double.NaN;
         for (int n = 1; n <= 90; n++)
         {
-            published += await StepAsync(sim, client, mapped);
-            await Until(() => SamplesIn(daemon) >= published, $"tags of cycle {n} ingested");
-            await Until(() => pipeline.IsWaitingForTick, "cycle loop waiting");
-            clock.SetUtcNow(sim.Time);
-            await Until(() => board.Get("r1")?.Cycle >= n, $"cycle {n}");
+            await rig.CycleAsync();
             if (n == 60)
             {
-                truthAt600 = sim.Truth().BiomassGPerL;
+                truthAt600 = rig.Sim.Truth().BiomassGPerL;
             }
         }
 
@@ -85,11 +74,7 @@ public sealed class OfflineSampleEndToEndTests(MosquittoFixture broker, Xunit.Ab
         long id = JsonDocument.Parse(entered).RootElement.GetProperty("sample").GetProperty("id").GetInt64();
 
         // The next cycle applies it on the cycle task.
-        published += await StepAsync(sim, client, mapped);
-        await Until(() => SamplesIn(daemon) >= published, "tags of cycle 91 ingested");
-        await Until(() => pipeline.IsWaitingForTick, "cycle loop waiting");
-        clock.SetUtcNow(sim.Time);
-        await Until(() => board.Get("r1")?.Cycle >= 91, "cycle 91");
+        await rig.CycleAsync();
         await client.WaitForAsync((t, p) => t == commands + "/sample/result" && p.Contains("\"outcome\":\"applied\"", StringComparison.Ordinal), Wait, "sample applied");
 
         // Prior X- and P at the sampling time from the stored history: the frame of the newest cycle at or before it
@@ -138,47 +123,12 @@ public sealed class OfflineSampleEndToEndTests(MosquittoFixture broker, Xunit.Ab
         Assert.Equal(xPosterior, corrected.RootElement[0].GetProperty("biomassGPerL").GetDouble(), 1e-9);
         using var trends = JsonDocument.Parse(await http.GetStringAsync(new Uri("/api/trends?reactor=r1", UriKind.Relative)));
         Assert.Equal(31, trends.RootElement.GetProperty("correctedBiomass").GetProperty("t").GetArrayLength());
+
+        // As a browser shows it: the biomass trend carries the corrected trajectory as its own (dashed) line.
+        string dom = await HeadlessChromium.DumpDomAsync(daemon.StatusAddress + "/");
+        Assert.Contains("class=\"corrected\"", dom, StringComparison.Ordinal);
+        Assert.Contains("dashed: corrected by offline samples", dom, StringComparison.Ordinal);
     }
 
-    private static async Task<long> StepAsync(VirtualReactor sim, TestMqttClient client, HashSet<string> mapped)
-    {
-        sim.Step(Period);
-        string time = sim.Time.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
-        long n = 0;
-        var sends = new List<Task>();
-        foreach (var (name, value) in sim.ReadTags())
-        {
-            string topic = DemoPublisher.Topic("r1", name);
-            if (mapped.Contains(topic))
-            {
-                sends.Add(client.PublishAsync(topic, string.Create(CultureInfo.InvariantCulture, $$"""{"value":{{value:R}},"timestamp":"{{time}}","quality":"good"}""")));
-                n++;
-            }
-        }
-
-        await Task.WhenAll(sends);
-        return n;
-    }
-
-    private static long SamplesIn(TestDaemon daemon)
-    {
-        var m = Regex.Match(daemon.Get<PrometheusExporter>().Render(), "softsensor_samples_in_total\\{reactor=\"r1\"\\} (\\d+)");
-        return m.Success ? long.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture) : 0;
-    }
-
-    private static Dictionary<string, string?> Flatten(string jsonFile)
-    {
-        var c = new ConfigurationBuilder().AddJsonFile(jsonFile).Build();
-        return c.AsEnumerable().Where(kv => kv.Value is not null).ToDictionary(kv => kv.Key, kv => kv.Value, StringComparer.OrdinalIgnoreCase);
-    }
-
-    private static async Task Until(Func<bool> condition, string what)
-    {
-        var until = DateTime.UtcNow + Wait;
-        while (!condition())
-        {
-            Assert.True(DateTime.UtcNow < until, $"not within {Wait}: {what}");
-            await Task.Delay(2);
-        }
-    }
+    private static Task Until(Func<bool> condition, string what) => EstimatorDaemonRig.Until(condition, what);
 }
