@@ -1,3 +1,4 @@
+using SoftSensor.Core.Gas;
 using SoftSensor.Core.Signals;
 
 namespace SoftSensor.Core.Estimation;
@@ -21,7 +22,13 @@ public struct BalanceRates
     /// <inheritdoc cref="CerMmolPerLh"/>
     public double CerSigmaMmolPerLh { get; set; }
 
-    /// <summary>Respiratory quotient and its standard uncertainty.</summary>
+    /// <summary>CO2 transfer rate to the gas, mmol/(L·h): equal to CER unless <see cref="CerCorrection"/> says otherwise.</summary>
+    public double CtrMmolPerLh { get; set; }
+
+    /// <summary>Which CER this cycle reports (METHODS.md 1.5: the output says which one was used).</summary>
+    public CerCorrection CerCorrection { get; set; }
+
+    /// <summary>Respiratory quotient (CER/OUR) and its standard uncertainty.</summary>
     public double Rq { get; set; }
 
     /// <inheritdoc cref="Rq"/>

@@ -11,7 +11,7 @@ namespace SoftSensor.Core.Estimation;
 /// <see cref="AnalyserAlignment"/>) → elemental balance reconciliation of OUR, CER and the
 /// feed- and base-derived rates → consistency test h, diagnosis only when it fails → growth rate
 /// → biomass observers → feed advisory. Pure and allocation-free per cycle; not thread-safe (one
-/// instance per reactor; it lends itself the volume slot of the inputs during a call and restores it). CER is the CO2 transfer rate: no dissolved-CO2 correction is applied.
+/// instance per reactor; it lends itself the volume slot of the inputs during a call and restores it). CER is the CO2 transfer rate unless the dissolved-CO2 correction is configured (<see cref="CerCorrectionStep"/>; its uncertainty is not added to CER's sigma).
 /// </summary>
 public sealed class Cycle
 {
@@ -121,14 +121,29 @@ public sealed class Cycle
             inputs.Remove(SignalRole.LiquidVolumeL);
         }
 
+        // CER = CTR, or corrected for the inorganic carbon the broth accumulates (METHODS.md 1.5) when configured.
+        double ctr = gas.CerMmolPerLh, cer = ctr, rq = gas.Rq, rqSigma = gas.RqSigma, cerSigma = gas.CerSigmaMmolPerLh, correctionSigma = 0;
+        var correction = CerCorrection.None;
+        if (_settings.CerCorrection != CerCorrection.None
+            && CerCorrectionStep.TryCorrect(inputs, ctr, gas.OutletCo2DryFraction, v, volume.RemovedL, volume.DtH, state, _settings, out double corrected, out correctionSigma))
+        {
+            correction = CerCorrection.DissolvedInorganicCarbon;
+            cer = corrected;
+            rq = gas.OurMmolPerLh > 0 ? cer / gas.OurMmolPerLh : double.NaN;
+            cerSigma = Math.Sqrt((cerSigma * cerSigma) + (correctionSigma * correctionSigma));
+            rqSigma = gas.RqSigma * Math.Abs(rq / gas.Rq) * (cerSigma / gas.CerSigmaMmolPerLh);
+        }
+
         var rates = new BalanceRates
         {
             OurMmolPerLh = gas.OurMmolPerLh,
             OurSigmaMmolPerLh = gas.OurSigmaMmolPerLh,
-            CerMmolPerLh = gas.CerMmolPerLh,
-            CerSigmaMmolPerLh = gas.CerSigmaMmolPerLh,
-            Rq = gas.Rq,
-            RqSigma = gas.RqSigma,
+            CerMmolPerLh = cer,
+            CerSigmaMmolPerLh = cerSigma,
+            CtrMmolPerLh = ctr,
+            CerCorrection = correction,
+            Rq = rq,
+            RqSigma = rqSigma,
             OutletFlowNlPerMin = gas.OutletFlowNlPerMin,
             GasQuality = gas.Quality,
             GrowthCmmolPerLh = double.NaN,
@@ -140,9 +155,9 @@ public sealed class Cycle
             GrowthQuality = SampleQuality.Bad,
         };
 
-        if (gas.Quality != SampleQuality.Bad && double.IsFinite(gas.OurMmolPerLh) && double.IsFinite(gas.CerMmolPerLh))
+        if (gas.Quality != SampleQuality.Bad && double.IsFinite(gas.OurMmolPerLh) && double.IsFinite(cer))
         {
-            Reconcile(inputs, gas, v, ref rates);
+            Reconcile(inputs, gas, cer, correctionSigma, v, ref rates);
         }
 
         EstimationStep.Run(inputs, volume, rates, state, est, outputs);
@@ -152,7 +167,7 @@ public sealed class Cycle
     public OfflineSampleOutcome ApplyOfflineSample(EstimatorState state, in OfflineSample sample) =>
         OfflineSampleUpdate.Apply(state, sample, _settings.Estimator);
 
-    private void Reconcile(AlignedInputs inputs, in GasBalanceResult gas, double v, ref BalanceRates rates)
+    private void Reconcile(AlignedInputs inputs, in GasBalanceResult gas, double cer, double correctionSigma, double v, ref BalanceRates rates)
     {
         double feed = inputs[SignalRole.FeedRateLPerH];
         bool feedOn = _settings.SubstrateFromFeed && inputs.QualityOf(SignalRole.FeedRateLPerH) != SampleQuality.Bad
@@ -166,9 +181,10 @@ public sealed class Cycle
         // Signs: consumption < 0 (METHODS.md conventions): r_O2 = -OUR, r_CO2 = +CER.
         double floor = _settings.MinimumGasRelativeSigma;
         double so = Math.Max(gas.OurSigmaMmolPerLh, floor * Math.Abs(gas.OurMmolPerLh));
-        double sc = Math.Max(gas.CerSigmaMmolPerLh, floor * Math.Abs(gas.CerMmolPerLh));
+        double sc = Math.Max(gas.CerSigmaMmolPerLh, floor * Math.Abs(cer));
+        sc = correctionSigma > 0 ? Math.Sqrt((sc * sc) + (correctionSigma * correctionSigma)) : sc;
         q[0] = -gas.OurMmolPerLh;
-        q[1] = gas.CerMmolPerLh;
+        q[1] = cer;
         psi[0] = so * so;
         psi[m + 1] = sc * sc;
         double cov = gas.Covariance.OurCer;

@@ -33,6 +33,18 @@ public sealed record CycleSettings
     /// <summary>Below this feed the substrate is not counted as measured, L/h.</summary>
     public double MinimumFeedLPerH { get; init; } = 1e-6;
 
+    /// <summary>Which CER the balance uses: the CO2 transfer rate, or corrected for the inorganic carbon the broth accumulates (METHODS.md 1.5; needs the Ph, TemperatureC and PressureKPa roles).</summary>
+    public CerCorrection CerCorrection { get; init; } = CerCorrection.None;
+
+    /// <summary>Shift of pK1 for the medium's ionic strength (METHODS.md 1.5: about -0.1 to -0.25; 0 for pure water).</summary>
+    public double Pk1MediumShift { get; init; }
+
+    /// <summary>Standard deviation of the pH signal's noise, for the uncertainty the CER correction adds (0.01: a typical glass electrode's noise, common practice).</summary>
+    public double PhSigma { get; init; } = 0.01;
+
+    /// <summary>Time constant of the filter on the total inorganic carbon before its derivative is taken, h.</summary>
+    public double TicFilterTimeConstantH { get; init; } = 0.1;
+
     /// <summary>Significance level of the consistency test (0.05: the 95 % χ² quantile).</summary>
     public double Alpha { get; init; } = 0.05;
 
@@ -49,6 +61,17 @@ public sealed record CycleSettings
         EstimatorSettings.Positive(errors, nameof(AmmoniaRelativeSigma), AmmoniaRelativeSigma);
         EstimatorSettings.Positive(errors, nameof(MinimumGasRelativeSigma), MinimumGasRelativeSigma);
         EstimatorSettings.NonNegative(errors, nameof(MinimumFeedLPerH), MinimumFeedLPerH);
+        EstimatorSettings.Positive(errors, nameof(TicFilterTimeConstantH), TicFilterTimeConstantH);
+        EstimatorSettings.NonNegative(errors, nameof(PhSigma), PhSigma);
+        if (!(Pk1MediumShift >= -1 && Pk1MediumShift <= 1))
+        {
+            errors.Add($"{nameof(Pk1MediumShift)} is {Pk1MediumShift}; expected a pK1 shift between -1 and 1 (METHODS.md 1.5: about -0.1 to -0.25)");
+        }
+
+        if (!Enum.IsDefined(CerCorrection))
+        {
+            errors.Add($"{nameof(CerCorrection)} is {CerCorrection}; expected None or DissolvedInorganicCarbon");
+        }
         if (!(Alpha > 0 && Alpha < 0.5))
         {
             errors.Add($"{nameof(Alpha)} is {Alpha}; expected a significance level in (0, 0.5)");

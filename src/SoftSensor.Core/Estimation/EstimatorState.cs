@@ -13,6 +13,7 @@ public sealed class EstimatorState
         History = new CycleHistory(historyCapacity);
         MuSmoothedPerH = double.NaN;
         RemovedTotalL = double.NaN;
+        TicMmolPerL = double.NaN;
     }
 
     /// <summary>The batch's stated initial culture, used at the first cycle; null for the configured defaults.</summary>
@@ -47,6 +48,9 @@ public sealed class EstimatorState
 
     /// <summary>Substrate fed since the start, g.</summary>
     public double SubstrateFedG { get; set; }
+
+    /// <summary>Filtered total inorganic carbon of the broth after the last cycle, mmol/L (NaN when the CER correction is off or has no inputs).</summary>
+    public double TicMmolPerL { get; set; }
 
     /// <summary>Offline samples applied.</summary>
     public long OfflineSamplesApplied { get; set; }

@@ -5,13 +5,14 @@ namespace SoftSensor.Core.Estimation;
 /// <summary>
 /// A versioned little-endian binary layout of <see cref="EstimatorState"/>: magic "SSES", layout
 /// version, the scalars, the batch's initial conditions (version 2; version 1 states, which have
-/// none, still read), then the history ring (oldest first). Doubles are stored bit for bit, so a
+/// none, still read), the filtered inorganic carbon of the CER correction (version 3, in a slot
+/// reserved before), then the history ring (oldest first). Doubles are stored bit for bit, so a
 /// resumed run continues exactly where the saved one stopped. The caller does the file I/O.
 /// </summary>
 public static class EstimatorStateCodec
 {
     /// <summary>Layout version written by this code.</summary>
-    public const ushort Version = 2;
+    public const ushort Version = 3;
 
     private const uint Magic = 0x53455353; // "SSES" read little-endian
     private const int HeaderBytes = 4 + 2 + 1 + (8 * 3) + (8 * 6) + (8 * 7) + 8 + 4 + 4;
@@ -39,7 +40,7 @@ public static class EstimatorStateCodec
         w.F64(state.SubstrateG);
         w.F64(state.SubstrateFedG);
         w.States(state.Observers);
-        w.F64(0.0); // reserved
+        w.F64(state.TicMmolPerL); // version 3; reserved (0) before
         w.I32(state.History.Capacity);
         w.I32(state.History.Count);
         var initial = state.Initial.GetValueOrDefault();
@@ -82,7 +83,7 @@ public static class EstimatorStateCodec
         long time = r.I64(), cycles = r.I64(), samples = r.I64();
         double volume = r.F64(), removed = r.F64(), pending = r.F64(), mu = r.F64(), substrate = r.F64(), fed = r.F64();
         var observers = r.States();
-        _ = r.F64();
+        double tic = r.F64();
         int capacity = r.I32(), count = r.I32();
         int initialBytes = version >= 2 ? InitialBytes : 0;
         if (capacity < 2 || count < 0 || count > capacity || bytes.Length != HeaderBytes + initialBytes + ((long)count * EntryBytes))
@@ -96,6 +97,7 @@ public static class EstimatorStateCodec
             Initialised = initialised, TimeTicks = time, Cycles = cycles, OfflineSamplesApplied = samples,
             VolumeL = volume, RemovedTotalL = removed, PendingRemovalL = pending, MuSmoothedPerH = mu,
             SubstrateG = substrate, SubstrateFedG = fed, Observers = observers,
+            TicMmolPerL = version >= 3 ? tic : double.NaN,
         };
         if (version >= 2)
         {

@@ -37,7 +37,8 @@ public static class CarbonateEquilibrium
     /// <param name="ph">Broth pH.</param>
     /// <param name="temperatureC">Broth temperature, °C.</param>
     /// <param name="co2PartialPressureKPa">CO2 partial pressure over the broth, kPa (outlet CO2 fraction times head pressure).</param>
-    public static double TotalInorganicCarbonMmolPerL(double ph, double temperatureC, double co2PartialPressureKPa)
+    /// <param name="pk1Shift">Added to pK1 for the medium (METHODS.md 1.5: media read about 0.1-0.25 lower; 0 for pure water).</param>
+    public static double TotalInorganicCarbonMmolPerL(double ph, double temperatureC, double co2PartialPressureKPa, double pk1Shift = 0)
     {
         double t = temperatureC + ReferenceConditions.ZeroCelsiusK;
         if (!double.IsFinite(ph) || !(t > 0) || !double.IsFinite(t) || !(co2PartialPressureKPa >= 0) || !double.IsFinite(co2PartialPressureKPa))
@@ -47,7 +48,7 @@ public static class CarbonateEquilibrium
 
         double dissolved = HenryMolPerM3Pa(t) * co2PartialPressureKPa * 1000.0;
         double h = Math.Pow(10, -ph);
-        double k1 = Math.Pow(10, -Pk1(t));
+        double k1 = Math.Pow(10, -(Pk1(t) + pk1Shift));
         double k2 = Math.Pow(10, -Pk2(t));
         return dissolved * (1 + (k1 / h) + (k1 * k2 / (h * h)));
     }

@@ -21,11 +21,23 @@ internal static class EstimatorSetup
         BaseAmmoniaMolPerL = balance.BaseAmmoniaMolPerL ?? double.NaN,
         AmmoniaRelativeSigma = balance.AmmoniaRelativeSigma,
         Alpha = balance.Alpha,
+        CerCorrection = CerCorrectionOf(balance.CerCorrection),
+        Pk1MediumShift = balance.Pk1MediumShift,
+        PhSigma = balance.PhSigma,
+        TicFilterTimeConstantH = balance.TicFilterMinutes / 60.0,
     };
 
     /// <summary>The faults of the estimator and balance sections, prefixed with <paramref name="key"/>.</summary>
-    public static IEnumerable<string> Validate(string key, EstimatorSettings estimator, BalanceConfig balance) =>
-        Settings(AlignedGasBalanceSettings.Default, estimator, balance).Validate().Select(e => $"{key}: {e}");
+    public static IEnumerable<string> Validate(string key, EstimatorSettings estimator, BalanceConfig balance)
+    {
+        var faults = Settings(AlignedGasBalanceSettings.Default, estimator, balance).Validate().Select(e => $"{key}: {e}");
+        return balance.CerCorrection is "none" or "dissolvedInorganicCarbon"
+            ? faults
+            : faults.Append($"{key}: balance.cerCorrection is '{balance.CerCorrection}'; expected none or dissolvedInorganicCarbon");
+    }
+
+    private static CerCorrection CerCorrectionOf(string text) =>
+        text == "dissolvedInorganicCarbon" ? CerCorrection.DissolvedInorganicCarbon : CerCorrection.None;
 
     /// <summary>Reads a stoichiometric model file; false with a message naming the file.</summary>
     public static bool TryLoadModel(string path, out StoichiometricModel? model, out string? error)

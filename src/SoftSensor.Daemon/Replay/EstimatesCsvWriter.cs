@@ -1,4 +1,5 @@
 using SoftSensor.Core.Estimation;
+using SoftSensor.Core.Gas;
 using SoftSensor.Core.Signals;
 
 namespace SoftSensor.Daemon.Replay;
@@ -21,6 +22,7 @@ internal sealed class EstimatesCsvWriter : IDisposable
         EstimateNames.QO2, EstimateNames.QCo2, EstimateNames.QSubstrate, EstimateNames.SubstrateGPerL,
         EstimateNames.FeedAdvisoryLPerH, EstimateNames.FeedSetpointLPerH, EstimateNames.FeedCapLPerH, EstimateNames.FeedOverflowCapLPerH,
         "feed_limit", EstimateNames.OtrMax, EstimateNames.Kla, "growth_source", "quality", "status_code",
+        "ctr", "cer_correction",
     ];
 
     private readonly TextWriter _writer;
@@ -52,6 +54,7 @@ internal sealed class EstimatesCsvWriter : IDisposable
         b.Next().Number(f.AdvisedLPerH, 5).Next().Number(f.SetpointLPerH, 5).Next().Number(f.OxygenCapLPerH, 5).Next().Number(f.OverflowCapLPerH, 5);
         b.Next().Text(FeedLimitText(f.Limit)).Next().Number(f.OxygenTransferCapacityMmolPerLh, 3).Next().Number(f.KlaPerH, 3);
         b.Next().Text(GrowthSourceText(r.GrowthSource)).Next().Text(QualityText(o.Quality)).Next().Number(o.BiomassStatusCode, 0);
+        b.Next().Number(r.CtrMmolPerLh, 4).Next().Text(r.CerCorrection == CerCorrection.DissolvedInorganicCarbon ? "dissolved-inorganic-carbon" : "none");
         _writer.Write(b.Row);
         _writer.Write('\n');
     }

@@ -158,4 +158,16 @@ internal sealed record BalanceConfig
 
     /// <summary>Significance level of the consistency test.</summary>
     public double Alpha { get; init; } = 0.05;
+
+    /// <summary><c>none</c>: CER = CTR; <c>dissolvedInorganicCarbon</c>: CER corrected for the inorganic carbon the broth accumulates (needs the Ph, TemperatureC and PressureKPa roles; METHODS.md 1.5).</summary>
+    public string CerCorrection { get; init; } = "none";
+
+    /// <summary>Shift of pK1 for the medium (about -0.1 to -0.25; 0 for pure water).</summary>
+    public double Pk1MediumShift { get; init; }
+
+    /// <summary>Standard deviation of the pH signal's noise (for the uncertainty of the CER correction).</summary>
+    public double PhSigma { get; init; } = 0.01;
+
+    /// <summary>Time constant of the filter on the inorganic carbon before its derivative, minutes.</summary>
+    public double TicFilterMinutes { get; init; } = 6;
 }

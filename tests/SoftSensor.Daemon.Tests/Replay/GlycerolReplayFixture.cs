@@ -50,9 +50,15 @@ public sealed class GlycerolReplayFixture : IDisposable
     public DateTimeOffset Start { get; }
 
     /// <summary>Replays a folder's history.csv with its offline.csv through the shipped configuration.</summary>
-    internal ReplayResult Replay(string dir, ReplayOptions? options = null, EstimatesCsvWriter? estimates = null)
+    internal ReplayResult Replay(string dir, ReplayOptions? options = null, EstimatesCsvWriter? estimates = null, Func<CycleSettings, CycleSettings>? adapt = null)
     {
         Assert.True(ReplayConfigLoader.TryLoad(ConfigPath, out var config, out var cycle, out var error), error);
+        if (adapt is not null)
+        {
+            var model = Core.Stoichiometry.ModelReader.Parse(File.ReadAllText(Path.Combine(Root, "config", config!.Model)));
+            cycle = new Cycle(model, adapt(cycle!.Settings));
+        }
+
         var samples = new List<ScheduledSample>();
         Assert.True(OfflineSampleFile.TryRead(Path.Combine(dir, "offline.csv"), config!.Offline!, samples, [], out var e2), e2);
         using var history = File.OpenRead(Path.Combine(dir, "history.csv"));
