@@ -11,8 +11,9 @@ namespace SoftSensor.Daemon.Pipeline;
 /// <summary>
 /// One reactor: its sources write samples into a bounded channel, one task moves them into the
 /// signal store, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
-/// with the aligned inputs; the frame goes to the dispatcher and the status board. The estimator
-/// state is checkpointed every N cycles and on stop.
+/// with the aligned inputs; the frame goes to the dispatcher and the status board. With a
+/// <c>cycleTrigger</c> tag the cycle runs as soon as that tag's sample is taken in, and at the latest
+/// one period after the previous cycle. The estimator state is checkpointed every N cycles and on stop.
 /// </summary>
 internal sealed class ReactorPipeline
 {
@@ -25,6 +26,7 @@ internal sealed class ReactorPipeline
     private readonly InputHealth[] _health;
     private readonly Lock _gate = new();
     private readonly KeyValuePair<string, object?> _reactorTag;
+    private readonly Channel<bool>? _trigger;
     private long _cycles;
     private long _newestArrival;
     private long _accepted;
@@ -39,6 +41,9 @@ internal sealed class ReactorPipeline
         _sources = sources;
         _services = services;
         _reactorTag = new("reactor", options.Id);
+        _trigger = options.CycleTrigger.Length > 0
+            ? Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite, SingleReader = true })
+            : null;
     }
 
     /// <summary>The reactor id.</summary>
@@ -63,7 +68,7 @@ internal sealed class ReactorPipeline
             FullMode = BoundedChannelFullMode.Wait,
         });
         PipelineLog.Started(_services.Logger, Reactor, _options.CyclePeriod, _signals.Bindings.Count, string.Join(", ", _sources.Select(s => s.Name)));
-        var tasks = new List<Task> { IngestAsync(channel.Reader, cancellationToken), CycleLoopAsync(cancellationToken) };
+        var tasks = new List<Task> { IngestAsync(channel.Reader, cancellationToken), _trigger is null ? CycleLoopAsync(cancellationToken) : TriggeredLoopAsync(_trigger.Reader, cancellationToken) };
         tasks.AddRange(_sources.Select(s => RunSourceAsync(s, channel.Writer, cancellationToken)));
         try
         {
@@ -91,6 +96,10 @@ internal sealed class ReactorPipeline
         {
             Volatile.Write(ref _newestArrival, _services.Time.GetTimestamp());
             Interlocked.Increment(ref _accepted);
+            if (_trigger is not null && string.Equals(sample.Tag, _options.CycleTrigger, StringComparison.Ordinal))
+            {
+                _trigger.Writer.TryWrite(true);
+            }
             _services.Metrics.SamplesIn.Add(1, _reactorTag);
         }
         else
@@ -164,6 +173,26 @@ internal sealed class ReactorPipeline
                 return;
             }
 
+            await RunCycleAsync(cancellationToken);
+        }
+    }
+
+    private async Task TriggeredLoopAsync(ChannelReader<bool> trigger, CancellationToken cancellationToken)
+    {
+        while (true)
+        {
+            using (var wait = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken))
+            {
+                var arrived = trigger.WaitToReadAsync(wait.Token).AsTask();
+                var fallback = Task.Delay(_options.CyclePeriod, _services.Time, wait.Token);
+                _waitingForTick = true;
+                await Task.WhenAny(arrived, fallback);
+                _waitingForTick = false;
+                await wait.CancelAsync();
+            }
+
+            cancellationToken.ThrowIfCancellationRequested();
+            trigger.TryRead(out _);
             await RunCycleAsync(cancellationToken);
         }
     }
