@@ -139,6 +139,26 @@ public sealed class AlarmEvaluator
             : new AlarmCommandResult(true, [transition], $"alarm '{command.RuleId}' {AlarmStates.Id(transition.From)} -> {AlarmStates.Id(transition.To)}");
     }
 
+    /// <summary>
+    /// A new batch began at <paramref name="time"/>: every alarm's process state returns to normal and its
+    /// delays and detection windows restart (<see cref="AlarmStateMachine.BeginBatch"/>); appends the transitions, returns how many.
+    /// </summary>
+    public int BeginBatch(DateTimeOffset time, List<AlarmTransition> transitions)
+    {
+        int before = transitions.Count;
+        foreach (var p in _ordered)
+        {
+            p.Delay.Reset(false);
+            p.Detector = new ConditionDetector(p.Rule); // rate and flat-line windows start over
+            if (p.Machine.BeginBatch(time) is { } t)
+            {
+                transitions.Add(t);
+            }
+        }
+
+        return transitions.Count - before;
+    }
+
     /// <summary>Restores saved states (after a restart); statuses of rules no longer configured are ignored.</summary>
     public void Restore(IEnumerable<AlarmStatus> statuses)
     {
@@ -156,7 +176,7 @@ public sealed class AlarmEvaluator
     {
         public AlarmRule Rule { get; } = rule;
 
-        public ConditionDetector Detector { get; } = new(rule);
+        public ConditionDetector Detector { get; set; } = new(rule);
 
         public DelayFilter Delay { get; } = new(rule.OnDelay, rule.OffDelay);
 

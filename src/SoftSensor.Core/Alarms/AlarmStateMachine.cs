@@ -178,6 +178,22 @@ public sealed class AlarmStateMachine
         return Emit(before, AlarmCause.ReturnedToService, time, by, force: false);
     }
 
+    /// <summary>
+    /// A new batch: the process state goes back to A (normal, condition absent), whatever the previous
+    /// batch left (active, unacknowledged); the operator's masks (shelved with its expiry, out of
+    /// service) stay, since they are decisions about the instrument rather than the batch, and so does
+    /// suppression by design, which the next evaluation sets from its signal. Null when nothing changed.
+    /// </summary>
+    public AlarmTransition? BeginBatch(DateTimeOffset time)
+    {
+        var before = State;
+        bool changed = _unmasked != AlarmState.Normal || ConditionPresent;
+        _unmasked = AlarmState.Normal;
+        ConditionPresent = false;
+        LastValue = double.NaN;
+        return changed ? Emit(before, AlarmCause.NewBatch, time, null, force: true) : null;
+    }
+
     /// <summary>Restores a state saved before a restart.</summary>
     public void Restore(AlarmStatus status)
     {

@@ -25,6 +25,8 @@ public enum AlarmCause
     RemovedFromService,
     /// <summary>H →: returned to service.</summary>
     ReturnedToService,
+    /// <summary>→ A (beneath any mask): a new batch began, the previous batch's process states were cleared.</summary>
+    NewBatch,
 }
 
 /// <summary>One state change of one alarm: what the journal stores and the event topic carries.</summary>

@@ -79,8 +79,24 @@ public sealed class Cycle
 
     private int SubstrateIndex { get; }
 
-    /// <summary>A fresh state for a new batch.</summary>
+    /// <summary>A fresh state for a new batch that starts from the configured initial culture.</summary>
     public EstimatorState NewState() => new(_settings.Estimator.HistoryCapacity);
+
+    /// <summary>
+    /// A fresh state for a new batch that starts from <paramref name="initial"/> at its first cycle:
+    /// biomass, its variance (P0 = sigma² of the integrator and the filter's X·V element), volume and
+    /// substrate; every integral (substrate fed, removals, mu filter, history) starts empty.
+    /// </summary>
+    public EstimatorState NewState(in BatchInitialConditions initial)
+    {
+        var errors = initial.Validate();
+        if (errors.Count > 0)
+        {
+            throw new ArgumentException("batch initial conditions: " + string.Join("; ", errors), nameof(initial));
+        }
+
+        return new EstimatorState(_settings.Estimator.HistoryCapacity) { Initial = initial };
+    }
 
     /// <summary>Runs one cycle at <paramref name="inputs"/>.Time, updating <paramref name="state"/> and overwriting <paramref name="outputs"/>.</summary>
     public void Run(AlignedInputs inputs, EstimatorState state, CycleOutputs outputs)

@@ -108,12 +108,13 @@ public static class EstimationStep
 
     internal static void Initialise(AlignedInputs inputs, long t, EstimatorState state, EstimatorSettings settings)
     {
-        double v = VolumeTracker.Current(inputs, settings.InitialVolumeL, 0, 0, settings, out _);
-        double xv = settings.InitialBiomassGPerL * v;
-        double sigma = settings.InitialBiomassSigmaGPerL * v;
+        var initial = state.Initial ?? BatchInitialConditions.From(settings);
+        double v = VolumeTracker.Current(inputs, initial.VolumeL, 0, 0, settings, out _);
+        double xv = initial.BiomassGPerL * v;
+        double sigma = initial.BiomassSigmaGPerL * v;
         state.VolumeL = v;
         state.TimeTicks = t;
-        state.SubstrateG = settings.InitialSubstrateGPerL * v;
+        state.SubstrateG = initial.SubstrateGPerL * v;
         state.Observers = new ObserverStates
         {
             BiomassG = xv,

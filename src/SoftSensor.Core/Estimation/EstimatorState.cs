@@ -15,6 +15,9 @@ public sealed class EstimatorState
         RemovedTotalL = double.NaN;
     }
 
+    /// <summary>The batch's stated initial culture, used at the first cycle; null for the configured defaults.</summary>
+    public BatchInitialConditions? Initial { get; set; }
+
     /// <summary>False until the first cycle set the initial culture.</summary>
     public bool Initialised { get; set; }
 

@@ -4,20 +4,22 @@ namespace SoftSensor.Core.Estimation;
 
 /// <summary>
 /// A versioned little-endian binary layout of <see cref="EstimatorState"/>: magic "SSES", layout
-/// version, the scalars, then the history ring (oldest first). Doubles are stored bit for bit, so a
+/// version, the scalars, the batch's initial conditions (version 2; version 1 states, which have
+/// none, still read), then the history ring (oldest first). Doubles are stored bit for bit, so a
 /// resumed run continues exactly where the saved one stopped. The caller does the file I/O.
 /// </summary>
 public static class EstimatorStateCodec
 {
     /// <summary>Layout version written by this code.</summary>
-    public const ushort Version = 1;
+    public const ushort Version = 2;
 
     private const uint Magic = 0x53455353; // "SSES" read little-endian
     private const int HeaderBytes = 4 + 2 + 1 + (8 * 3) + (8 * 6) + (8 * 7) + 8 + 4 + 4;
+    private const int InitialBytes = 1 + (8 * 4);
     private const int EntryBytes = 8 + (8 * 7) + (8 * 7);
 
     /// <summary>Bytes needed for <paramref name="state"/>.</summary>
-    public static int SizeOf(EstimatorState state) => HeaderBytes + (state.History.Count * EntryBytes);
+    public static int SizeOf(EstimatorState state) => HeaderBytes + InitialBytes + (state.History.Count * EntryBytes);
 
     /// <summary>Writes <paramref name="state"/> into a new array.</summary>
     public static byte[] Encode(EstimatorState state)
@@ -40,6 +42,12 @@ public static class EstimatorStateCodec
         w.F64(0.0); // reserved
         w.I32(state.History.Capacity);
         w.I32(state.History.Count);
+        var initial = state.Initial.GetValueOrDefault();
+        w.Byte(state.Initial is null ? (byte)0 : (byte)1);
+        w.F64(initial.VolumeL);
+        w.F64(initial.BiomassGPerL);
+        w.F64(initial.BiomassSigmaGPerL);
+        w.F64(initial.SubstrateGPerL);
         for (int i = 0; i < state.History.Count; i++)
         {
             ref var e = ref state.History[i];
@@ -64,9 +72,9 @@ public static class EstimatorStateCodec
         var r = new SpanReader(bytes);
         uint magic = r.U32();
         ushort version = r.U16();
-        if (magic != Magic || version != Version)
+        if (magic != Magic || version is < 1 or > Version)
         {
-            error = $"state has magic 0x{magic:X8} version {version}; expected 0x{Magic:X8} version {Version}";
+            error = $"state has magic 0x{magic:X8} version {version}; expected 0x{Magic:X8} version 1 to {Version}";
             return false;
         }
 
@@ -76,7 +84,8 @@ public static class EstimatorStateCodec
         var observers = r.States();
         _ = r.F64();
         int capacity = r.I32(), count = r.I32();
-        if (capacity < 2 || count < 0 || count > capacity || bytes.Length != HeaderBytes + ((long)count * EntryBytes))
+        int initialBytes = version >= 2 ? InitialBytes : 0;
+        if (capacity < 2 || count < 0 || count > capacity || bytes.Length != HeaderBytes + initialBytes + ((long)count * EntryBytes))
         {
             error = $"state history has capacity {capacity}, count {count} in {bytes.Length} bytes; the layout does not add up";
             return false;
@@ -88,6 +97,13 @@ public static class EstimatorStateCodec
             VolumeL = volume, RemovedTotalL = removed, PendingRemovalL = pending, MuSmoothedPerH = mu,
             SubstrateG = substrate, SubstrateFedG = fed, Observers = observers,
         };
+        if (version >= 2)
+        {
+            bool hasInitial = r.Byte() == 1;
+            var initial = new BatchInitialConditions(r.F64(), r.F64(), r.F64(), r.F64());
+            s.Initial = hasInitial ? initial : null;
+        }
+
         for (int i = 0; i < count; i++)
         {
             var e = new HistoryEntry { TimeTicks = r.I64(), Inputs = r.Inputs(), States = r.States() };

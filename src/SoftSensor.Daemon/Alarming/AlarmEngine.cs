@@ -4,22 +4,36 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Daemon.Alarming;
 
 /// <summary>One reactor's changes of one evaluation or command, ready to journal and publish.</summary>
-internal sealed record AlarmChanges(string Reactor, IReadOnlyList<(AlarmTransition Transition, AlarmRule Rule, AlarmStatus Status)> Items);
+internal sealed record AlarmChanges(string Reactor, IReadOnlyList<(AlarmTransition Transition, AlarmRule Rule, AlarmStatus Status)> Items)
+{
+    /// <summary>Set when the frame's batch is not the one the states belonged to: the batch to record.</summary>
+    public string? NewBatch { get; init; }
+
+    /// <summary>The batch the states belonged to before <see cref="NewBatch"/> (null on the first frame ever: nothing was reset).</summary>
+    public string? PreviousBatch { get; init; }
+
+    /// <summary>How many alarms the new batch returned to normal.</summary>
+    public int Reset { get; init; }
+}
 
 /// <summary>
 /// The alarm rules applied to every reactor: one <see cref="AlarmEvaluator"/> per reactor, created
 /// on its first frame and restored from the journal. Serialises evaluations and commands per
 /// reactor (a lock), so the frame task and an operator command never race. Thread-safe.
+/// Batches: alarm states belong to the batch of the frames that raised them; the first frame of
+/// another batch id returns every alarm of that reactor to normal (<see cref="AlarmEvaluator.BeginBatch"/>)
+/// before it is evaluated, in frame order, so no late frame of the old batch re-raises them.
 /// </summary>
 internal sealed class AlarmEngine
 {
     private readonly AlarmRuleSet _rules;
     private readonly Func<string, IReadOnlyList<AlarmStatus>> _restore;
+    private readonly Func<string, string?> _restoreBatch;
     private readonly Dictionary<string, Reactor> _reactors = new(StringComparer.Ordinal);
     private readonly Lock _gate = new();
 
-    /// <summary>Creates the engine; <paramref name="restore"/> gives a reactor's saved statuses.</summary>
-    public AlarmEngine(AlarmRuleSet rules, Func<string, IReadOnlyList<AlarmStatus>> restore)
+    /// <summary>Creates the engine; <paramref name="restore"/> gives a reactor's saved statuses, <paramref name="restoreBatch"/> the batch they belong to.</summary>
+    public AlarmEngine(AlarmRuleSet rules, Func<string, IReadOnlyList<AlarmStatus>> restore, Func<string, string?>? restoreBatch = null)
     {
         if (rules.Errors.Count > 0)
         {
@@ -28,6 +42,7 @@ internal sealed class AlarmEngine
 
         _rules = rules;
         _restore = restore;
+        _restoreBatch = restoreBatch ?? (_ => null);
     }
 
     /// <summary>The rules.</summary>
@@ -51,12 +66,17 @@ internal sealed class AlarmEngine
         var r = Get(frame.Reactor, frame.SourceTime);
         lock (r)
         {
+            r.Buffer.Clear();
+            string? previous = r.Batch;
+            bool newBatch = previous != frame.BatchId;
+            int reset = newBatch && previous is not null ? r.Evaluator.BeginBatch(frame.SourceTime, r.Buffer) : 0;
+            r.Batch = frame.BatchId;
             r.Snapshot.Clear();
             r.Snapshot.AddFrame(frame);
             addSignals?.Invoke(r.Snapshot);
-            r.Buffer.Clear();
             r.Evaluator.Evaluate(r.Snapshot, r.Buffer);
-            return Pack(frame.Reactor, r, r.Buffer);
+            var changes = Pack(frame.Reactor, r, r.Buffer);
+            return newBatch ? changes with { NewBatch = frame.BatchId, PreviousBatch = previous, Reset = reset } : changes;
         }
     }
 
@@ -114,7 +134,7 @@ internal sealed class AlarmEngine
             {
                 var evaluator = new AlarmEvaluator(_rules.Rules, _rules.MaxShelve, start);
                 evaluator.Restore(_restore(reactor));
-                _reactors[reactor] = r = new Reactor(evaluator);
+                _reactors[reactor] = r = new Reactor(evaluator) { Batch = _restoreBatch(reactor) };
             }
 
             return r;
@@ -128,5 +148,8 @@ internal sealed class AlarmEngine
         public AlarmSnapshot Snapshot { get; } = new();
 
         public List<AlarmTransition> Buffer { get; } = [];
+
+        /// <summary>The batch the states belong to (null until known).</summary>
+        public string? Batch { get; set; }
     }
 }

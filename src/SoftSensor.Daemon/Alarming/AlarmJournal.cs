@@ -11,6 +11,7 @@ internal sealed record JournalEntry(long Id, string Reactor, AlarmTransition Tra
 /// The alarm journal in the daemon's SQLite file: table <c>alarm_journal</c> (every transition,
 /// append-only) and <c>alarm_status</c> (the latest state per reactor and rule, so that states
 /// survive a restart). Both are written in one transaction before the transition is published.
+/// <c>alarm_batches</c> keeps, per reactor, the batch the alarm states belong to (a new batch resets them).
 /// Threading: every method may be called from any thread (one connection behind a lock).
 /// </summary>
 internal sealed class AlarmJournal : IDisposable
@@ -57,6 +58,10 @@ internal sealed class AlarmJournal : IDisposable
               shelved_until_ms INTEGER,
               value REAL,
               PRIMARY KEY(reactor, rule_id));
+            CREATE TABLE IF NOT EXISTS alarm_batches(
+              reactor TEXT PRIMARY KEY,
+              batch TEXT NOT NULL,
+              since_ms INTEGER NOT NULL);
             """);
     }
 
@@ -134,6 +139,32 @@ internal sealed class AlarmJournal : IDisposable
             }
 
             return list;
+        }
+    }
+
+    /// <summary>Records the batch a reactor's alarm states now belong to.</summary>
+    public void RecordBatch(string reactor, string batch, DateTimeOffset since)
+    {
+        lock (_gate)
+        {
+            using var c = _db.CreateCommand();
+            c.CommandText = "INSERT INTO alarm_batches(reactor, batch, since_ms) VALUES ($r, $b, $t) ON CONFLICT(reactor) DO UPDATE SET batch = excluded.batch, since_ms = excluded.since_ms;";
+            c.Parameters.AddWithValue("$r", reactor);
+            c.Parameters.AddWithValue("$b", batch);
+            c.Parameters.AddWithValue("$t", since.ToUnixTimeMilliseconds());
+            c.ExecuteNonQuery();
+        }
+    }
+
+    /// <summary>The batch a reactor's alarm states belong to, or null when none was recorded.</summary>
+    public string? BatchOf(string reactor)
+    {
+        lock (_gate)
+        {
+            using var c = _db.CreateCommand();
+            c.CommandText = "SELECT batch FROM alarm_batches WHERE reactor = $r;";
+            c.Parameters.AddWithValue("$r", reactor);
+            return c.ExecuteScalar() as string;
         }
     }
 

@@ -17,6 +17,9 @@ internal static partial class AlarmLog
     [LoggerMessage(EventId = 7203, Level = LogLevel.Information, Message = "alarms: {Count} rule(s) from {Files}")]
     public static partial void Loaded(ILogger logger, int count, string files);
 
+    [LoggerMessage(EventId = 7205, Level = LogLevel.Information, Message = "alarms of {Reactor}: batch {Previous} -> {Batch}, {Count} alarm(s) returned to normal for the new batch")]
+    public static partial void BatchReset(ILogger logger, string reactor, string previous, string batch, int count);
+
     [LoggerMessage(EventId = 7204, Level = LogLevel.Warning, Message = "alarm publish to {Topic} failed: broker unreachable (the journal has it)")]
     public static partial void PublishFailed(ILogger logger, string topic);
 }

@@ -76,12 +76,18 @@ internal sealed class AlarmService(
 
     private async ValueTask CommitAsync(AlarmChanges changes, CancellationToken cancellationToken)
     {
-        if (changes.Items.Count == 0)
+        // Journal first (the reset transitions with the rest), then the batch the states now belong to:
+        // a crash in between resets once more after the restart, which changes nothing.
+        journal.Append(changes.Reactor, changes.Items);
+        if (changes.NewBatch is { } batch)
         {
-            return;
+            journal.RecordBatch(changes.Reactor, batch, time.GetUtcNow());
+            if (changes.PreviousBatch is { } previous)
+            {
+                AlarmLog.BatchReset(log, changes.Reactor, previous, batch, changes.Reset);
+            }
         }
 
-        journal.Append(changes.Reactor, changes.Items);
         foreach (var (t, rule, status) in changes.Items)
         {
             AlarmLog.Transition(log, changes.Reactor, t.RuleId, AlarmStates.Id(t.From), AlarmStates.Id(t.To), AlarmPayloads.CauseId(t.Cause), t.Value, rule.Message);

@@ -70,7 +70,7 @@ internal static class AlarmServices
 
             AlarmLog.Loaded(sp.GetRequiredService<ILoggerFactory>().CreateLogger(typeof(AlarmServices).FullName!), set.Rules.Count, string.Join(", ", files));
             var journal = sp.GetRequiredService<AlarmJournal>();
-            return new AlarmEngine(set, journal.Statuses);
+            return new AlarmEngine(set, journal.Statuses, journal.BatchOf);
         });
         services.AddSingleton<AlarmInputSignals>();
         services.AddSingleton<IAlarmSignalSource>(sp => sp.GetRequiredService<AlarmInputSignals>());

@@ -17,6 +17,11 @@ internal sealed record BatchRun(
 {
     /// <summary>True until the batch is ended.</summary>
     public bool IsOpen => EndedAt is null;
+
+    /// <summary>The initial conditions handed to the reactor's estimator when the batch begins.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public Core.Estimation.BatchInitialConditions Initial =>
+        new(InitialVolumeL, InoculumBiomassGPerL, InoculumBiomassSigmaGPerL, InitialSubstrateGPerL);
 }
 
 /// <summary>The body of a start command (status API, CLI).</summary>

@@ -50,6 +50,8 @@ internal static class DaemonHost
         app.MapAlarmEndpoints();
         app.MapBatchEndpoints();
         app.MapBatchForm();
+        Samples.SampleEndpoints.MapSampleEndpoints(app);
+        Samples.SampleForm.MapSampleForm(app);
         return app;
     }
 

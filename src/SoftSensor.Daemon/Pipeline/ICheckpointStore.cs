@@ -5,7 +5,8 @@ namespace SoftSensor.Daemon.Pipeline;
 /// <param name="Cycle">Cycle number at which it was taken.</param>
 /// <param name="Time">Cycle time (UTC).</param>
 /// <param name="State">The state as the cycle wrote it (JSON).</param>
-internal sealed record Checkpoint(string Reactor, long Cycle, DateTimeOffset Time, string State);
+/// <param name="Batch">The operator batch the state belongs to: its id, empty when no batch was open, null in a checkpoint written before batches were recorded.</param>
+internal sealed record Checkpoint(string Reactor, long Cycle, DateTimeOffset Time, string State, string? Batch = null);
 
 /// <summary>Durable storage of checkpoints (the embedded store). Thread-safe.</summary>
 internal interface ICheckpointStore

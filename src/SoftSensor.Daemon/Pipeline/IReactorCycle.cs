@@ -1,3 +1,4 @@
+using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
 
@@ -18,6 +19,13 @@ internal interface IReactorCycle
 
     /// <summary>Restores a checkpoint written by <see cref="SaveState"/>.</summary>
     void RestoreState(string state);
+
+    /// <summary>
+    /// A new batch: drops the estimator state (biomass and substrate integrals, volume tracking,
+    /// filters, history) and starts a fresh one from <paramref name="initial"/> at the next cycle.
+    /// Throws <see cref="ArgumentException"/> naming the field when the conditions are invalid.
+    /// </summary>
+    void BeginBatch(in BatchInitialConditions initial);
 }
 
 /// <summary>What one cycle produced: the values and the newest input source time it used (default when none).</summary>

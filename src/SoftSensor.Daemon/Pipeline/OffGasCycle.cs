@@ -43,6 +43,11 @@ internal sealed class OffGasCycle : IReactorCycle
     {
         // Stateless: nothing to restore.
     }
+
+    public void BeginBatch(in Core.Estimation.BatchInitialConditions initial)
+    {
+        // Stateless: nothing to reset.
+    }
 }
 
 /// <summary>Makes an <see cref="OffGasCycle"/> for every reactor.</summary>

@@ -31,4 +31,13 @@ internal static partial class PipelineLog
 
     [LoggerMessage(1008, LogLevel.Warning, "Reactor {Reactor}: cycle is behind, frame queue full; waiting")]
     public static partial void DispatchBehind(ILogger logger, string reactor);
+
+    [LoggerMessage(1009, LogLevel.Information, "Reactor {Reactor}: batch {Batch} begins; estimator state reset to its initial conditions ({VolumeL} L, biomass {BiomassGPerL} ± {SigmaGPerL} g/L, substrate {SubstrateGPerL} g/L)")]
+    public static partial void BatchBegan(ILogger logger, string reactor, string batch, double volumeL, double biomassGPerL, double sigmaGPerL, double substrateGPerL);
+
+    [LoggerMessage(1010, LogLevel.Warning, "Reactor {Reactor}: the checkpoint of cycle {Cycle} belongs to batch '{CheckpointBatch}', not to the open batch '{OpenBatch}'; not applied")]
+    public static partial void CheckpointOfOtherBatch(ILogger logger, string reactor, long cycle, string checkpointBatch, string openBatch);
+
+    [LoggerMessage(1011, LogLevel.Error, "Reactor {Reactor}: batch {Batch} could not reset the estimator: {Reason}")]
+    public static partial void BatchBeginFailed(ILogger logger, string reactor, string batch, string reason);
 }

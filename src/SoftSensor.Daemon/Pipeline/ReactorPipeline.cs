@@ -13,9 +13,14 @@ namespace SoftSensor.Daemon.Pipeline;
 /// signal store, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
 /// with the aligned inputs; the frame goes to the dispatcher and the status board. With a
 /// <c>cycleTrigger</c> tag the cycle runs as soon as that tag's sample is taken in, and at the latest
-/// one period after the previous cycle. The estimator state is checkpointed every N cycles and on stop.
+/// one period after the previous cycle. The estimator
+/// state is checkpointed every N cycles and on stop, with the batch it belongs to.
+/// Batches: at each cycle the pipeline reads the reactor's open batch
+/// (<see cref="Batches.BatchBook.Current"/>); when it is not the batch the estimator state belongs
+/// to, it calls <see cref="IReactorCycle.BeginBatch"/> with the batch's initial conditions before
+/// the cycle runs, and checkpoints right after it. A checkpoint of another batch is not restored.
 /// </summary>
-internal sealed class ReactorPipeline
+internal sealed partial class ReactorPipeline
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
@@ -27,6 +32,7 @@ internal sealed class ReactorPipeline
     private readonly Lock _gate = new();
     private readonly KeyValuePair<string, object?> _reactorTag;
     private readonly Channel<bool>? _trigger;
+    private string _stateBatch = string.Empty;
     private long _cycles;
     private long _newestArrival;
     private long _accepted;
@@ -49,8 +55,8 @@ internal sealed class ReactorPipeline
     /// <summary>The reactor id.</summary>
     public string Reactor => _options.Id;
 
-    /// <summary>The open batch's id, else the configured one.</summary>
-    private string BatchId => _services.Batches?.Current(Reactor)?.BatchId ?? _options.BatchId;
+    /// <summary>The operator batch the estimator state belongs to (empty before the first batch).</summary>
+    public string StateBatch => Volatile.Read(ref _stateBatch);
 
     /// <summary>True while the cycle loop waits for its next tick (lets tests on a fake clock advance it safely).</summary>
     internal bool IsWaitingForTick => _waitingForTick;
@@ -116,6 +122,16 @@ internal sealed class ReactorPipeline
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
+        var open = _services.Batches?.Current(Reactor);
+        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
+        string batchId = open?.BatchId ?? _options.BatchId;
+        if (_services.Samples is { } samples)
+        {
+            // Operator inputs go to the estimator here, on the cycle task (after a batch start reset it), so they never race a cycle.
+            Samples.SampleApplier.ApplyPending(samples, Reactor, batchId, _cycle,
+                state => state is null ? null : new Checkpoint(Reactor, Interlocked.Read(ref _cycles), now, state, StateBatch), _services.Logger);
+        }
+
         long arrival;
         lock (_gate)
         {
@@ -123,13 +139,13 @@ internal sealed class ReactorPipeline
             arrival = Volatile.Read(ref _newestArrival);
         }
 
-        var frame = Compute(now);
+        var frame = Compute(now, batchId);
         long n = Interlocked.Increment(ref _cycles);
         _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);
         _services.Metrics.Cycles.Add(1, _reactorTag);
         _services.Metrics.CycleSeconds.Record(Stopwatch.GetElapsedTime(start).TotalSeconds, _reactorTag);
-        if (n % _services.CheckpointEveryCycles == 0)
+        if (began || n % _services.CheckpointEveryCycles == 0)
         {
             await CheckpointAsync(cancellationToken);
         }
@@ -137,7 +153,26 @@ internal sealed class ReactorPipeline
         return frame;
     }
 
-    private EstimateFrame Compute(DateTimeOffset now)
+    private bool BeginBatch(Batches.BatchRun open)
+    {
+        var initial = open.Initial;
+        try
+        {
+            _cycle.BeginBatch(initial);
+            PipelineLog.BatchBegan(_services.Logger, Reactor, open.BatchId, initial.VolumeL, initial.BiomassGPerL, initial.BiomassSigmaGPerL, initial.SubstrateGPerL);
+        }
+        catch (ArgumentException e)
+        {
+            // The batch book validates every start; a failure here is a programming error. The batch keeps
+            // running on the previous state rather than retrying every cycle.
+            PipelineLog.BatchBeginFailed(_services.Logger, Reactor, open.BatchId, e.Message);
+        }
+
+        Volatile.Write(ref _stateBatch, open.BatchId);
+        return true;
+    }
+
+    private EstimateFrame Compute(DateTimeOffset now, string batchId)
     {
         try
         {
@@ -149,84 +184,19 @@ internal sealed class ReactorPipeline
             }
 
             var sourceTime = output.SourceTime == default ? now : output.SourceTime;
-            return new EstimateFrame(Reactor, BatchId, sourceTime, quality, output.Values);
+            return new EstimateFrame(Reactor, batchId, sourceTime, quality, output.Values);
         }
         catch (Exception e) when (e is ArithmeticException or InvalidOperationException or ArgumentException)
         {
             // A cycle reports everyday failures as results; an exception here is a programming or model
             // error. Publish a Bad frame rather than stop the reactor's pipeline, and log it.
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
-            return new EstimateFrame(Reactor, BatchId, now, SampleQuality.Bad, []);
+            return new EstimateFrame(Reactor, batchId, now, SampleQuality.Bad, []);
         }
     }
 
-    private async Task CycleLoopAsync(CancellationToken cancellationToken)
-    {
-        using var timer = new PeriodicTimer(_options.CyclePeriod, _services.Time);
-        while (true)
-        {
-            _waitingForTick = true;
-            bool ticked = await timer.WaitForNextTickAsync(cancellationToken);
-            _waitingForTick = false;
-            if (!ticked)
-            {
-                return;
-            }
-
-            await RunCycleAsync(cancellationToken);
-        }
-    }
-
-    private async Task TriggeredLoopAsync(ChannelReader<bool> trigger, CancellationToken cancellationToken)
-    {
-        while (true)
-        {
-            using (var wait = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken))
-            {
-                var arrived = trigger.WaitToReadAsync(wait.Token).AsTask();
-                var fallback = Task.Delay(_options.CyclePeriod, _services.Time, wait.Token);
-                _waitingForTick = true;
-                await Task.WhenAny(arrived, fallback);
-                _waitingForTick = false;
-                await wait.CancelAsync();
-            }
-
-            cancellationToken.ThrowIfCancellationRequested();
-            trigger.TryRead(out _);
-            await RunCycleAsync(cancellationToken);
-        }
-    }
-
-    private async Task IngestAsync(ChannelReader<Sample> reader, CancellationToken cancellationToken)
-    {
-        while (await reader.WaitToReadAsync(cancellationToken))
-        {
-            while (reader.TryRead(out var sample))
-            {
-                Accept(sample);
-            }
-        }
-    }
-
-    private async Task RunSourceAsync(ISampleSource source, ChannelWriter<Sample> writer, CancellationToken cancellationToken)
-    {
-        try
-        {
-            await source.RunAsync(writer, cancellationToken);
-        }
-        catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
-        {
-            // Normal stop.
-        }
-        catch (Exception e)
-        {
-            // A source owns its reconnect loop; one that still fails is logged, and its inputs go stale
-            // (the estimates turn Bad) instead of the whole daemon stopping.
-            PipelineLog.SourceFailed(_services.Logger, e, Reactor, source.Name);
-        }
-    }
-
-    private async Task RestoreAsync(CancellationToken cancellationToken)
+    /// <summary>Restores the newest checkpoint when it belongs to the open batch (RunAsync does it first; internal for tests).</summary>
+    internal async Task RestoreAsync(CancellationToken cancellationToken)
     {
         if (_services.Checkpoints is not { } store)
         {
@@ -239,9 +209,17 @@ internal sealed class ReactorPipeline
             return;
         }
 
+        var open = _services.Batches?.Current(Reactor);
+        if (!BelongsToOpenBatch(checkpoint, open))
+        {
+            PipelineLog.CheckpointOfOtherBatch(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Batch ?? "(unrecorded)", open?.BatchId ?? "(none)");
+            return;
+        }
+
         try
         {
             _cycle.RestoreState(checkpoint.State);
+            Volatile.Write(ref _stateBatch, open?.BatchId ?? string.Empty);
             Interlocked.Exchange(ref _cycles, checkpoint.Cycle);
             PipelineLog.Restored(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Time);
         }
@@ -251,6 +229,16 @@ internal sealed class ReactorPipeline
         }
     }
 
+    /// <summary>
+    /// A checkpoint resumes the open batch only when it was written in it (or, with no batch open, outside
+    /// any batch); one written before batches were recorded counts when the open batch had already started.
+    /// </summary>
+    private static bool BelongsToOpenBatch(Checkpoint checkpoint, Batches.BatchRun? open) => checkpoint.Batch switch
+    {
+        null => open is null || open.StartedAt <= checkpoint.Time,
+        var batch => batch == (open?.BatchId ?? string.Empty),
+    };
+
     private async ValueTask CheckpointAsync(CancellationToken cancellationToken)
     {
         if (_services.Checkpoints is not { } store || _cycle.SaveState() is not { } state)
@@ -258,6 +246,7 @@ internal sealed class ReactorPipeline
             return;
         }
 
-        await store.WriteCheckpointAsync(new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state), cancellationToken);
+        var checkpoint = new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state, StateBatch);
+        await store.WriteCheckpointAsync(checkpoint, cancellationToken);
     }
 }

@@ -41,7 +41,16 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         _writer = new SqliteConnection(_connectionString);
         _writer.Open();
         Execute(_writer, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON; PRAGMA busy_timeout=5000;");
-        Execute(_writer, StoreSchema.Create + $"PRAGMA user_version={StoreSchema.Version};");
+        Execute(_writer, StoreSchema.Create);
+        foreach (var (table, column, sql) in StoreSchema.AddedColumns)
+        {
+            if (!HasColumn(_writer, table, column))
+            {
+                Execute(_writer, sql);
+            }
+        }
+
+        Execute(_writer, $"PRAGMA user_version={StoreSchema.Version};");
         Execute(_writer, "PRAGMA wal_autocheckpoint=0;");
         // Real time, whatever the process clock: this is file maintenance, not part of the process.
         _checkpointer = TimeProvider.System.CreateTimer(_ => CheckpointWal(), null, TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1));
@@ -196,7 +205,8 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         try
         {
             using var c = _writer.CreateCommand();
-            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state) VALUES ($r, $c, $t, $s)";
+            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch) VALUES ($r, $c, $t, $s, $b)";
+            c.Parameters.AddWithValue("$b", (object?)checkpoint.Batch ?? DBNull.Value);
             c.Parameters.AddWithValue("$r", checkpoint.Reactor);
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);
             c.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
@@ -237,6 +247,14 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         CheckpointWal();
         _writer.Dispose();
         _writeGate.Dispose();
+    }
+
+    private static bool HasColumn(SqliteConnection connection, string table, string column)
+    {
+        using var c = connection.CreateCommand();
+        c.CommandText = $"SELECT COUNT(*) FROM pragma_table_info('{table}') WHERE name = $c";
+        c.Parameters.AddWithValue("$c", column);
+        return (long)c.ExecuteScalar()! > 0;
     }
 
     private static void Execute(SqliteConnection connection, string sql)

@@ -7,14 +7,14 @@ namespace SoftSensor.Daemon.Store;
 /// <item><c>frames</c>: one row per cycle and reactor (its id orders the outbox).</item>
 /// <item><c>estimates</c>: one row per value of a frame, indexed by reactor, name and time.</item>
 /// <item><c>alarms</c>: every alarm state change (the active ones are the newest row per alarm with active = 1).</item>
-/// <item><c>checkpoints</c>: estimator state per reactor as JSON, newest last.</item>
+/// <item><c>checkpoints</c>: estimator state per reactor, newest last, with the batch it belongs to (version 2).</item>
 /// <item><c>outbox_cursors</c>: per forwarding target (e.g. the time-series database), the id of the newest frame it acknowledged.</item>
 /// </list>
 /// </summary>
 internal static class StoreSchema
 {
     /// <summary>Schema version in <c>PRAGMA user_version</c>.</summary>
-    public const int Version = 1;
+    public const int Version = 2;
 
     public const string Create = """
         CREATE TABLE IF NOT EXISTS frames (
@@ -56,7 +56,8 @@ internal static class StoreSchema
             reactor   TEXT    NOT NULL,
             cycle     INTEGER NOT NULL,
             time_ms   INTEGER NOT NULL,
-            state     TEXT    NOT NULL
+            state     TEXT    NOT NULL,
+            batch     TEXT
         );
         CREATE INDEX IF NOT EXISTS checkpoints_by_reactor ON checkpoints (reactor, id);
         CREATE TABLE IF NOT EXISTS outbox_cursors (
@@ -65,4 +66,10 @@ internal static class StoreSchema
             updated_ms INTEGER NOT NULL
         );
         """;
+
+    /// <summary>Brings a version 1 file up to date (SQLite's CREATE IF NOT EXISTS keeps old tables as they were).</summary>
+    public static readonly (string Table, string Column, string Sql)[] AddedColumns =
+    [
+        ("checkpoints", "batch", "ALTER TABLE checkpoints ADD COLUMN batch TEXT"),
+    ];
 }

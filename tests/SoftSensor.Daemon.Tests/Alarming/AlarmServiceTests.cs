@@ -25,7 +25,7 @@ public sealed class AlarmServiceTests : IDisposable
     {
         _journal = new AlarmJournal(Path.Combine(_dir, "softsensor.db"));
         var rules = AlarmRuleFile.Load(Directory.GetFiles(AlarmRuleFileTests.ConfigDir, "*.json").Order(StringComparer.Ordinal));
-        _service = new AlarmService(new AlarmEngine(rules, _journal.Statuses), _journal, [new InputsSignal(_inputs)], [_published], _clock, NullLogger<AlarmService>.Instance);
+        _service = new AlarmService(new AlarmEngine(rules, _journal.Statuses, _journal.BatchOf), _journal, [new InputsSignal(_inputs)], [_published], _clock, NullLogger<AlarmService>.Instance);
     }
 
     public void Dispose()
@@ -34,7 +34,7 @@ public sealed class AlarmServiceTests : IDisposable
         Directory.Delete(_dir, recursive: true);
     }
 
-    private async Task CycleAsync(double rq, SampleQuality quality, double airNlPerMin, double feedLPerH, int seconds = 10)
+    private async Task CycleAsync(double rq, SampleQuality quality, double airNlPerMin, double feedLPerH, int seconds = 10, string batch = "b-7")
     {
         _clock.Advance(TimeSpan.FromSeconds(seconds));
         var now = _clock.GetUtcNow();
@@ -47,7 +47,7 @@ public sealed class AlarmServiceTests : IDisposable
         _inputs.Set(SignalRole.FeedRateLPerH, feedLPerH, SampleQuality.Good, now);
         _inputs.Set(SignalRole.DissolvedOxygenPercent, 40, SampleQuality.Good, now);
         double v(double x) => quality == SampleQuality.Bad ? double.NaN : x;
-        var frame = new EstimateFrame("r1", "b-7", now, quality,
+        var frame = new EstimateFrame("r1", batch, now, quality,
         [
             new EstimateValue(EstimateNames.Our, v(40), "mmol/(L·h)", 1, quality, 0),
             new EstimateValue(EstimateNames.Rq, v(rq), "1", 0.02, quality, 0),
@@ -104,6 +104,36 @@ public sealed class AlarmServiceTests : IDisposable
 
         var refused = await _service.CommandAsync(Encoding.UTF8.GetBytes("""{"command":"acknowledge","alarm":"rq_window","operator":"anna"}"""), "r1", CancellationToken.None);
         Assert.Equal("alarm 'rq_window' is acknowledged: nothing to acknowledge", refused.Message);
+    }
+
+    [Fact]
+    public async Task WriteAsync_FirstFrameOfANewBatch_ReturnsEveryAlarmToNormalJournalsAndPublishesIt()
+    {
+        for (int i = 0; i < 20; i++)
+        {
+            await CycleAsync(rq: 1.3, SampleQuality.Good, airNlPerMin: 45, feedLPerH: 1.3);
+        }
+
+        Assert.Equal("unacknowledged", StateOf("rq_window"));
+        Assert.Equal("unacknowledged", StateOf("feed_above_advisory"));
+        int published = _published.Events.Count;
+
+        // Same process values in the next batch: the on-delay of rq_window (120 s) starts over, so it is normal.
+        await CycleAsync(rq: 1.3, SampleQuality.Good, airNlPerMin: 45, feedLPerH: 0.5, batch: "b-8");
+        Assert.Equal("normal", StateOf("rq_window"));
+        Assert.Equal("normal", StateOf("feed_above_advisory"));
+        var resets = _journal.Recent("r1", 100).Where(e => e.Transition.Cause == AlarmCause.NewBatch).Select(e => e.Transition.RuleId).Order(StringComparer.Ordinal);
+        Assert.Equal(["feed_above_advisory", "rq_window"], resets);
+        Assert.Contains(_published.Events.Skip(published), e => e.Alarm == "rq_window" && e.Cause == "new_batch" && e.To == "normal");
+        Assert.Equal("b-8", _journal.BatchOf("r1"));
+
+        // A restart in batch b-8 restores the cleared states and resets nothing again.
+        var rules = AlarmRuleFile.Load(Directory.GetFiles(AlarmRuleFileTests.ConfigDir, "*.json").Order(StringComparer.Ordinal));
+        var restarted = new AlarmEngine(rules, _journal.Statuses, _journal.BatchOf);
+        var frame = new EstimateFrame("r1", "b-8", _clock.GetUtcNow().AddSeconds(10), SampleQuality.Good, [new EstimateValue(EstimateNames.Rq, 1.0, "1", 0.02, SampleQuality.Good, 0)]);
+        var changes = restarted.Evaluate(frame, null);
+        Assert.Null(changes.NewBatch);
+        Assert.DoesNotContain(changes.Items, c => c.Transition.Cause == AlarmCause.NewBatch);
     }
 
     private sealed class InputsSignal(AlignedInputs inputs) : IAlarmSignalSource
