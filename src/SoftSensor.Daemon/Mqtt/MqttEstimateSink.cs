@@ -7,14 +7,31 @@ namespace SoftSensor.Daemon.Mqtt;
 /// Publishes every value of a frame to <c>{prefix}/{site}/{area}/{reactor}/estimate/{name}</c> as JSON
 /// (<see cref="EstimatePayload"/>), retained, QoS 1, all values of a frame in flight together. While
 /// the link is down the publishes are counted as failures and skipped: the next frame after the
-/// reconnect replaces the retained values, and the embedded store keeps the history.
+/// reconnect replaces the retained values, and the embedded store keeps the history. The batch and
+/// its phase go to the retained <c>.../{reactor}/batch</c> topic (<c>{"batchId":"gly-7","phase":"fed-batch",
+/// "timestamp":...}</c>) when they change, and again every <see cref="BatchRepeatFrames"/> frames.
 /// </summary>
 internal sealed class MqttEstimateSink(MqttLink link, MqttTopics topics) : IEstimateSink
 {
+    private const int BatchRepeatFrames = 60;
+    private readonly Dictionary<string, (string Batch, string Phase, int Frames)> _batches = new(StringComparer.Ordinal);
+
     public string Name => "mqtt";
 
     public async ValueTask WriteAsync(EstimateFrame frame, CancellationToken cancellationToken)
     {
+        // Frames arrive one at a time from the dispatcher: the dictionary needs no lock.
+        bool same = _batches.TryGetValue(frame.Reactor, out var last) && last.Batch == frame.BatchId && last.Phase == frame.Phase;
+        if (!same || last.Frames >= BatchRepeatFrames)
+        {
+            bool sent = await link.PublishAsync(topics.Batch(frame.Reactor), BatchPayload(frame), retain: true, cancellationToken);
+            _batches[frame.Reactor] = (frame.BatchId, frame.Phase, sent ? 1 : BatchRepeatFrames);
+        }
+        else
+        {
+            _batches[frame.Reactor] = last with { Frames = last.Frames + 1 };
+        }
+
         var pending = new Task<bool>[frame.Values.Count];
         for (int i = 0; i < pending.Length; i++)
         {
@@ -24,4 +41,11 @@ internal sealed class MqttEstimateSink(MqttLink link, MqttTopics topics) : IEsti
 
         await Task.WhenAll(pending);
     }
+
+    private static byte[] BatchPayload(EstimateFrame frame) => System.Text.Json.JsonSerializer.SerializeToUtf8Bytes(new
+    {
+        batchId = frame.BatchId,
+        phase = frame.Phase,
+        timestamp = frame.SourceTime.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", System.Globalization.CultureInfo.InvariantCulture),
+    });
 }

@@ -22,6 +22,7 @@ internal sealed class ReactorPipeline
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
+    private readonly Batches.BatchSignals _batchSignals;
     private readonly IReactorCycle _cycle;
     private readonly IReadOnlyList<ISampleSource> _sources;
     private readonly PipelineServices _services;
@@ -38,8 +39,10 @@ internal sealed class ReactorPipeline
     public ReactorPipeline(ReactorOptions options, IReadOnlyList<TagBinding> bindings, IReactorCycle cycle, IReadOnlyList<ISampleSource> sources, PipelineServices services)
     {
         _options = options;
-        _signals = new SignalStore(bindings);
-        _health = new InputHealth[bindings.Count];
+        var process = TagBinding.Process(bindings);
+        _signals = new SignalStore(process);
+        _batchSignals = new Batches.BatchSignals(options, bindings);
+        _health = new InputHealth[process.Count];
         _cycle = cycle;
         _sources = sources;
         _services = services;
@@ -87,9 +90,16 @@ internal sealed class ReactorPipeline
     public bool Accept(in Sample sample)
     {
         bool ok;
-        lock (_gate)
+        if (_batchSignals.Handles(sample.Tag))
         {
-            ok = _signals.Accept(sample);
+            ok = _batchSignals.Accept(sample);
+        }
+        else
+        {
+            lock (_gate)
+            {
+                ok = _signals.Accept(sample);
+            }
         }
 
         if (ok)
@@ -112,9 +122,6 @@ internal sealed class ReactorPipeline
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
-        var open = _services.Batches?.Current(Reactor);
-        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
-        string batchId = open?.BatchId ?? _options.BatchId;
         long arrival;
         lock (_gate)
         {
@@ -122,7 +129,16 @@ internal sealed class ReactorPipeline
             arrival = Volatile.Read(ref _newestArrival);
         }
 
-        var frame = Compute(now, batchId);
+        if (_services.Batches is { } book)
+        {
+            _batchSignals.Apply(now, _inputs, book, _services.Logger);
+        }
+
+        var open = _services.Batches?.Current(Reactor);
+        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
+        string batchId = open?.BatchId ?? _options.BatchId;
+
+        var frame = Compute(now, batchId) with { Phase = open?.Phase ?? string.Empty };
         long n = Interlocked.Increment(ref _cycles);
         _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);

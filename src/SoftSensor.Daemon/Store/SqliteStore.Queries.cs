@@ -54,16 +54,16 @@ internal sealed partial class SqliteStore
     {
         cancellationToken.ThrowIfCancellationRequested();
         using var conn = OpenReader();
-        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality)>();
+        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality, string Phase)>();
         using (var c = conn.CreateCommand())
         {
-            c.CommandText = "SELECT id, reactor, batch, time_ms, quality FROM frames WHERE id > $a ORDER BY id LIMIT $l";
+            c.CommandText = "SELECT id, reactor, batch, time_ms, quality, phase FROM frames WHERE id > $a ORDER BY id LIMIT $l";
             c.Parameters.AddWithValue("$a", afterId);
             c.Parameters.AddWithValue("$l", limit);
             using var r = c.ExecuteReader();
             while (r.Read())
             {
-                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4)));
+                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4), r.GetString(5)));
             }
         }
 
@@ -89,7 +89,7 @@ internal sealed partial class SqliteStore
 
         IReadOnlyList<StoredFrame> result = frames.Select(f => new StoredFrame(
             f.Id,
-            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : [])))
+            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : []) { Phase = f.Phase }))
             .ToList();
         return ValueTask.FromResult(result);
     }

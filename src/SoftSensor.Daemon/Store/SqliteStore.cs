@@ -76,7 +76,8 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             long ms = frame.SourceTime.ToUnixTimeMilliseconds();
             using var f = _writer.CreateCommand();
             f.Transaction = tx;
-            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality) VALUES ($r, $b, $t, $q) RETURNING id";
+            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase) VALUES ($r, $b, $t, $q, $p) RETURNING id";
+            f.Parameters.AddWithValue("$p", frame.Phase);
             f.Parameters.AddWithValue("$r", frame.Reactor);
             f.Parameters.AddWithValue("$b", frame.BatchId);
             f.Parameters.AddWithValue("$t", ms);
