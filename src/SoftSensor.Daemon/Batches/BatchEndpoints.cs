@@ -18,7 +18,8 @@ internal static class BatchEndpoints
 {
     /// <summary>Registers the batch book (one line in the host's services).</summary>
     public static IServiceCollection AddBatches(this IServiceCollection services) =>
-        services.AddSingleton<BatchBook>().AddHostedService<BatchCommandListener>();
+        services.AddSingleton<BatchBook>().AddHostedService<BatchCommandListener>()
+            .AddSingleton<BatchReports>().AddHostedService(sp => sp.GetRequiredService<BatchReports>());
 
     public static void MapBatchEndpoints(this IEndpointRouteBuilder app)
     {

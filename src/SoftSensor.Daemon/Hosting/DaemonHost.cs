@@ -50,6 +50,7 @@ internal static class DaemonHost
         app.MapAlarmEndpoints();
         app.MapBatchEndpoints();
         app.MapBatchForm();
+        app.MapBatchReports();
         return app;
     }
 

@@ -151,6 +151,52 @@ internal sealed partial class SqliteStore
         return ValueTask.FromResult(cp);
     }
 
+    /// <summary>Every frame of one batch of a reactor with its values by name, oldest first (the batch report's data).</summary>
+    public ValueTask<IReadOnlyList<StoredFrameValues>> BatchFramesAsync(string reactor, string batch, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = """
+            SELECT f.id, f.time_ms, f.quality, e.name, e.value, e.sigma, e.unit, e.quality, e.status_code
+            FROM frames f JOIN estimates e ON e.frame_id = f.id
+            WHERE f.reactor = $r AND f.batch = $b ORDER BY f.id
+            """;
+        c.Parameters.AddWithValue("$r", reactor);
+        c.Parameters.AddWithValue("$b", batch);
+        var list = new List<StoredFrameValues>();
+        Dictionary<string, EstimateValue>? values = null;
+        using var r = c.ExecuteReader();
+        long current = -1;
+        while (r.Read())
+        {
+            long id = r.GetInt64(0);
+            if (id != current || values is null)
+            {
+                current = id;
+                values = new Dictionary<string, EstimateValue>(StringComparer.Ordinal);
+                list.Add(new StoredFrameValues(DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(1)), (SampleQuality)r.GetInt32(2), values));
+            }
+
+            string name = r.GetString(3);
+            values[name] = new EstimateValue(name, r.IsDBNull(4) ? double.NaN : r.GetDouble(4), r.GetString(6),
+                r.IsDBNull(5) ? double.NaN : r.GetDouble(5), (SampleQuality)r.GetInt32(7), (uint)r.GetInt64(8));
+        }
+
+        return ValueTask.FromResult<IReadOnlyList<StoredFrameValues>>(list);
+    }
+
+    /// <summary>The batch id of the newest stored frame of a reactor, or null.</summary>
+    public ValueTask<string?> LatestBatchAsync(string reactor, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = "SELECT batch FROM frames WHERE reactor = $r ORDER BY id DESC LIMIT 1";
+        c.Parameters.AddWithValue("$r", reactor);
+        return ValueTask.FromResult(c.ExecuteScalar() as string);
+    }
+
     private static StoredEstimate ReadEstimate(SqliteDataReader r) => new(
         r.GetInt64(0),
         r.GetString(1),
