@@ -18,7 +18,7 @@ namespace SoftSensor.Daemon.Pipeline;
 /// to, it calls <see cref="IReactorCycle.BeginBatch"/> with the batch's initial conditions before
 /// the cycle runs, and checkpoints right after it. A checkpoint of another batch is not restored.
 /// </summary>
-internal sealed class ReactorPipeline
+internal sealed partial class ReactorPipeline
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
@@ -238,60 +238,5 @@ internal sealed class ReactorPipeline
             // (the estimates turn Bad) instead of the whole daemon stopping.
             PipelineLog.SourceFailed(_services.Logger, e, Reactor, source.Name);
         }
-    }
-
-    /// <summary>Restores the newest checkpoint when it belongs to the open batch (RunAsync does it first; internal for tests).</summary>
-    internal async Task RestoreAsync(CancellationToken cancellationToken)
-    {
-        if (_services.Checkpoints is not { } store)
-        {
-            return;
-        }
-
-        var checkpoint = await store.LatestCheckpointAsync(Reactor, cancellationToken);
-        if (checkpoint is null)
-        {
-            return;
-        }
-
-        var open = _services.Batches?.Current(Reactor);
-        if (!BelongsToOpenBatch(checkpoint, open))
-        {
-            PipelineLog.CheckpointOfOtherBatch(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Batch ?? "(unrecorded)", open?.BatchId ?? "(none)");
-            return;
-        }
-
-        try
-        {
-            _cycle.RestoreState(checkpoint.State);
-            Volatile.Write(ref _stateBatch, open?.BatchId ?? string.Empty);
-            Interlocked.Exchange(ref _cycles, checkpoint.Cycle);
-            PipelineLog.Restored(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Time);
-        }
-        catch (Exception e) when (e is FormatException or System.Text.Json.JsonException or ArgumentException or InvalidOperationException)
-        {
-            PipelineLog.RestoreFailed(_services.Logger, Reactor, e.Message);
-        }
-    }
-
-    /// <summary>
-    /// A checkpoint resumes the open batch only when it was written in it (or, with no batch open, outside
-    /// any batch); one written before batches were recorded counts when the open batch had already started.
-    /// </summary>
-    private static bool BelongsToOpenBatch(Checkpoint checkpoint, Batches.BatchRun? open) => checkpoint.Batch switch
-    {
-        null => open is null || open.StartedAt <= checkpoint.Time,
-        var batch => batch == (open?.BatchId ?? string.Empty),
-    };
-
-    private async ValueTask CheckpointAsync(CancellationToken cancellationToken)
-    {
-        if (_services.Checkpoints is not { } store || _cycle.SaveState() is not { } state)
-        {
-            return;
-        }
-
-        var checkpoint = new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state, StateBatch);
-        await store.WriteCheckpointAsync(checkpoint, cancellationToken);
     }
 }

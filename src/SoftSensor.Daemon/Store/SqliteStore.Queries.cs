@@ -142,11 +142,14 @@ internal sealed partial class SqliteStore
         cancellationToken.ThrowIfCancellationRequested();
         using var conn = OpenReader();
         using var c = conn.CreateCommand();
-        c.CommandText = "SELECT cycle, time_ms, state, batch FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1";
+        c.CommandText = "SELECT cycle, time_ms, state, batch, inputs FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1";
         c.Parameters.AddWithValue("$r", reactor);
         using var r = c.ExecuteReader();
         Checkpoint? cp = r.Read()
             ? new Checkpoint(reactor, r.GetInt64(0), DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(1)), r.GetString(2), r.IsDBNull(3) ? null : r.GetString(3))
+            {
+                Inputs = r.IsDBNull(4) ? null : r.GetString(4),
+            }
             : null;
         return ValueTask.FromResult(cp);
     }

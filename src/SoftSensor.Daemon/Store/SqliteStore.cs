@@ -158,7 +158,8 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         try
         {
             using var c = _writer.CreateCommand();
-            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch) VALUES ($r, $c, $t, $s, $b)";
+            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch, inputs) VALUES ($r, $c, $t, $s, $b, $i)";
+            c.Parameters.AddWithValue("$i", (object?)checkpoint.Inputs ?? DBNull.Value);
             c.Parameters.AddWithValue("$b", (object?)checkpoint.Batch ?? DBNull.Value);
             c.Parameters.AddWithValue("$r", checkpoint.Reactor);
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);

@@ -58,7 +58,8 @@ internal static class StoreSchema
             cycle     INTEGER NOT NULL,
             time_ms   INTEGER NOT NULL,
             state     TEXT    NOT NULL,
-            batch     TEXT
+            batch     TEXT,
+            inputs    TEXT
         );
         CREATE INDEX IF NOT EXISTS checkpoints_by_reactor ON checkpoints (reactor, id);
         CREATE TABLE IF NOT EXISTS outbox_cursors (
@@ -73,5 +74,6 @@ internal static class StoreSchema
     [
         ("checkpoints", "batch", "ALTER TABLE checkpoints ADD COLUMN batch TEXT"),
         ("frames", "phase", "ALTER TABLE frames ADD COLUMN phase TEXT NOT NULL DEFAULT ''"),
+        ("checkpoints", "inputs", "ALTER TABLE checkpoints ADD COLUMN inputs TEXT"),
     ];
 }
