@@ -12,6 +12,7 @@ internal sealed class BalanceStage
     private readonly BalanceSolver _solver;
     private readonly HypothesisOutcome[] _outcomes;
     private readonly string[] _suspects;
+    private BalanceOutcome _last;
 
     public BalanceStage(StoichiometricModel model, IReadOnlyList<string> measured, double alpha)
     {
@@ -59,12 +60,12 @@ internal sealed class BalanceStage
     }
 
     /// <summary>Reconciles and tests.</summary>
-    public BalanceOutcome Solve() => _solver.Solve(Measured, Covariance, Rates, Sigmas);
+    public BalanceOutcome Solve() => _last = _solver.Solve(Measured, Covariance, Rates, Sigmas);
 
-    /// <summary>The hypothesis the diagnosis isolates (a measurement id, or "product missing"), or null when none is isolated.</summary>
+    /// <summary>The hypothesis the diagnosis isolates (a measurement id, or "product missing"), or null when none is isolated; after <see cref="Solve"/> on the same inputs.</summary>
     public string? Diagnose(out DiagnosisVerdict verdict)
     {
-        var summary = _solver.Diagnose(Measured, Covariance, _outcomes);
+        var summary = _solver.DiagnoseAfterSolve(Measured, Covariance, _outcomes, _last);
         verdict = summary.Verdict;
         return summary.IsolatedIndex >= 0 ? _suspects[summary.IsolatedIndex] : null;
     }

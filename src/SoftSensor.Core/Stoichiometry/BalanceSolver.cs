@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
@@ -11,6 +13,7 @@ public sealed class BalanceSolver
     private readonly BalanceKernel _base;
     private readonly BalanceKernel[] _hypothesisKernels;
     private readonly double[] _subQ, _subPsi, _work;
+    private readonly HypothesisKind[] _kinds;
 
     internal BalanceSolver(BalanceSetup setup)
     {
@@ -38,6 +41,7 @@ public sealed class BalanceSolver
         }
 
         Hypotheses = hypotheses;
+        _kinds = hypotheses.Select(h => h.Kind).ToArray();
         _hypothesisKernels = [.. kernels];
         int m = MeasuredIds.Count;
         _subQ = new double[m];
@@ -139,7 +143,6 @@ public sealed class BalanceSolver
     /// </summary>
     public DiagnosisSummary Diagnose(ReadOnlySpan<double> measured, ReadOnlySpan<double> covariance, Span<HypothesisOutcome> outcomes)
     {
-        int m = MeasuredIds.Count;
         CheckLengths(measured.Length, covariance.Length);
         if (outcomes.Length != Hypotheses.Count)
         {
@@ -147,15 +150,35 @@ public sealed class BalanceSolver
         }
 
         var baseStatus = _base.Solve(measured, covariance, _work.AsSpan(0, Compounds.Count), [], [], out double h0);
-        var baseOutcome = new BalanceOutcome(baseStatus, h0, _base.Redundancy, _base.Critical);
+        return DiagnoseCore(measured, covariance, outcomes, new BalanceOutcome(baseStatus, h0, _base.Redundancy, _base.Critical));
+    }
+
+    /// <summary>
+    /// As <see cref="Diagnose"/>, for the cycle, which has just solved the same <paramref name="measured"/> and
+    /// <paramref name="covariance"/> and passes that <paramref name="baseOutcome"/> instead of having it computed again.
+    /// </summary>
+    internal DiagnosisSummary DiagnoseAfterSolve(ReadOnlySpan<double> measured, ReadOnlySpan<double> covariance, Span<HypothesisOutcome> outcomes, in BalanceOutcome baseOutcome)
+    {
+        CheckLengths(measured.Length, covariance.Length);
+        if (outcomes.Length != _kinds.Length)
+        {
+            throw new ArgumentException($"outcomes must hold {_kinds.Length} entries, got {outcomes.Length}", nameof(outcomes));
+        }
+
+        return DiagnoseCore(measured, covariance, outcomes, baseOutcome);
+    }
+
+    private DiagnosisSummary DiagnoseCore(ReadOnlySpan<double> measured, ReadOnlySpan<double> covariance, Span<HypothesisOutcome> outcomes, in BalanceOutcome baseOutcome)
+    {
+        int m = MeasuredIds.Count;
+        int columns = Compounds.Count;
         int passing = 0, isolated = -1;
         for (int i = 0; i < _hypothesisKernels.Length; i++)
         {
             var kernel = _hypothesisKernels[i];
-            var hypothesis = Hypotheses[i];
             ReadOnlySpan<double> q = measured, psi = covariance;
-            int suspectColumn = Compounds.Count;
-            if (hypothesis.Kind == HypothesisKind.MeasurementInError)
+            int suspectColumn = columns;
+            if (_kinds[i] == HypothesisKind.MeasurementInError)
             {
                 int k = i;
                 suspectColumn = _base.MeasuredColumns[k];
@@ -164,11 +187,10 @@ public sealed class BalanceSolver
                 psi = _subPsi.AsSpan(0, (m - 1) * (m - 1));
             }
 
-            var rates = _work.AsSpan(0, kernel.Columns);
-            var status = kernel.Solve(q, psi, rates, [], [], out double h);
-            bool ok = status is BalanceStatus.Solved or BalanceStatus.PartlyDetermined;
-            outcomes[i] = new HypothesisOutcome(ok ? h : double.NaN, kernel.Redundancy, kernel.Critical, ok ? rates[suspectColumn] : double.NaN);
-            if (outcomes[i].Consistent)
+            bool ok = kernel.TestHypothesis(q, psi, suspectColumn, out double h, out double suspectRate);
+            var outcome = new HypothesisOutcome(ok ? h : double.NaN, kernel.Redundancy, kernel.Critical, ok ? suspectRate : double.NaN);
+            outcomes[i] = outcome;
+            if (outcome.Consistent)
             {
                 passing++;
                 isolated = i;
@@ -185,13 +207,21 @@ public sealed class BalanceSolver
         return new DiagnosisSummary(verdict, baseOutcome, verdict == DiagnosisVerdict.Isolated ? isolated : -1);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private void CheckLengths(int measured, int covariance)
     {
-        int m = MeasuredIds.Count;
+        int m = _subQ.Length;
         if (measured != m || covariance != m * m)
         {
-            throw new ArgumentException($"expected {m} measured rates ({string.Join(", ", MeasuredIds)}) and {m * m} covariance entries; got {measured} and {covariance}");
+            WrongLengths(measured, covariance);
         }
+    }
+
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private void WrongLengths(int measured, int covariance)
+    {
+        int m = MeasuredIds.Count;
+        throw new ArgumentException($"expected {m} measured rates ({string.Join(", ", MeasuredIds)}) and {m * m} covariance entries; got {measured} and {covariance}");
     }
 
     private void CopyWithout(ReadOnlySpan<double> q, ReadOnlySpan<double> psi, int skip, int m)

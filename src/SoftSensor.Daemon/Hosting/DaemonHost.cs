@@ -51,6 +51,8 @@ internal static class DaemonHost
         app.MapBatchEndpoints();
         app.MapBatchForm();
         app.MapBatchReports();
+        Samples.SampleEndpoints.MapSampleEndpoints(app);
+        Samples.SampleForm.MapSampleForm(app);
         return app;
     }
 

@@ -38,6 +38,7 @@ internal static class DaemonServices
         services.AddSingleton<SqliteStore>();
         services.AddSingleton<ICheckpointStore>(sp => sp.GetRequiredService<SqliteStore>());
         services.AddBatches();
+        Samples.SampleEndpoints.AddOperatorSamples(services);
 
         // The broker link keeps real time even when the demo accelerates the process clock.
         services.AddSingleton(sp => ActivatorUtilities.CreateInstance<MqttLink>(sp, TimeProvider.System));

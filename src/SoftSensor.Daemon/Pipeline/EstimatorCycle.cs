@@ -10,10 +10,10 @@ namespace SoftSensor.Daemon.Pipeline;
 /// The full estimator's cycle: the same <see cref="Cycle"/> the replay runs (gas balance, elemental
 /// balance with its consistency test, growth rate, biomass, feed advisory; METHODS.md) on the
 /// aligned inputs, flattened by <see cref="EstimateFrames"/>. Its state (biomass, volume, history)
-/// is checkpointed with <see cref="EstimatorStateCodec"/> so a restart resumes. Offline samples are
-/// not fed to the live cycle.
+/// is checkpointed with <see cref="EstimatorStateCodec"/> so a restart resumes. Operator inputs (offline
+/// samples, withdrawals) reach it through <see cref="Samples.IOfflineInputTarget"/> on the cycle task.
 /// </summary>
-internal sealed class EstimatorCycle : IReactorCycle
+internal sealed class EstimatorCycle : IReactorCycle, Samples.IOfflineInputTarget
 {
     private static readonly SignalRole[] EstimatorRoles =
     [
@@ -50,6 +50,13 @@ internal sealed class EstimatorCycle : IReactorCycle
 
         return new CycleOutput(values, _gas.NewestUsed(health));
     }
+
+    public DateTimeOffset? ReachedAt => _state.Initialised ? new DateTimeOffset(_state.TimeTicks, TimeSpan.Zero) : null;
+
+    public OfflineCorrection ApplySample(in OfflineSample sample) => OfflineCorrections.ApplySample(_state, sample, _cycle.Settings.Estimator);
+
+    public OfflineCorrection ApplyRemoval(DateTimeOffset at, double volumeL) =>
+        OfflineCorrections.ApplyRemoval(_state, at, volumeL, _outputs.VolumeSource == VolumeSource.Integrated, _cycle.Settings.Estimator);
 
     public string? SaveState() => Convert.ToBase64String(EstimatorStateCodec.Encode(_state));
 

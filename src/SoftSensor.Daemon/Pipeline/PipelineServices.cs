@@ -15,4 +15,7 @@ internal sealed record PipelineServices(
 {
     /// <summary>The operator's batches: the open batch's id replaces the configured one in every frame (null in tests without it).</summary>
     public Batches.BatchBook? Batches { get; init; }
+
+    /// <summary>The operator inputs (offline samples, withdrawals) applied on the cycle task before each cycle (null in tests without them).</summary>
+    public Samples.SampleBook? Samples { get; init; }
 }

@@ -21,10 +21,11 @@ internal sealed class PipelineSupervisor : BackgroundService
         DaemonMetrics metrics,
         TimeProvider time,
         ILogger<PipelineSupervisor> logger,
-        Batches.BatchBook? batches = null)
+        Batches.BatchBook? batches = null,
+        Samples.SampleBook? samples = null)
     {
         var o = options.Value;
-        var services = new PipelineServices(time, dispatcher, board, checkpoints, metrics, logger, o.Store.CheckpointEveryCycles) { Batches = batches };
+        var services = new PipelineServices(time, dispatcher, board, checkpoints, metrics, logger, o.Store.CheckpointEveryCycles) { Batches = batches, Samples = samples };
         var factories = sourceFactories.ToList();
         _pipelines = o.Reactors.Select(r =>
         {

@@ -78,13 +78,18 @@ internal sealed partial class ReactorPipeline
             return;
         }
 
+        await store.WriteCheckpointAsync(NewCheckpoint(state, _services.Time.GetUtcNow()), cancellationToken);
+    }
+
+    /// <summary>A checkpoint of <paramref name="state"/> now: the cycle count, the batch it belongs to and the held input samples.</summary>
+    private Checkpoint NewCheckpoint(string state, DateTimeOffset time)
+    {
         string inputs;
         lock (_gate)
         {
             inputs = HeldSamples.Encode(_signals.Held());
         }
 
-        var checkpoint = new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state, StateBatch) { Inputs = inputs };
-        await store.WriteCheckpointAsync(checkpoint, cancellationToken);
+        return new Checkpoint(Reactor, Interlocked.Read(ref _cycles), time, state, StateBatch) { Inputs = inputs };
     }
 }

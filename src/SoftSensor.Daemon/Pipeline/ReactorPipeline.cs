@@ -137,6 +137,12 @@ internal sealed partial class ReactorPipeline
         var open = _services.Batches?.Current(Reactor);
         bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
         string batchId = open?.BatchId ?? _options.BatchId;
+        if (_services.Samples is { } samples)
+        {
+            // Operator inputs go to the estimator here, on the cycle task (after a batch start reset it), so they never race a cycle.
+            Samples.SampleApplier.ApplyPending(samples, Reactor, batchId, _cycle,
+                state => state is null ? null : NewCheckpoint(state, now), _services.Logger);
+        }
 
         var frame = Compute(now, batchId) with { Phase = open?.Phase ?? string.Empty };
         long n = Interlocked.Increment(ref _cycles);

@@ -154,7 +154,7 @@ internal sealed class HistoryRowParser
                 return RowOutcome.MissingCell;
             }
 
-            if (!double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double raw) || !double.IsFinite(raw))
+            if (!DecimalCell.TryParse(cell, out double raw) || !double.IsFinite(raw))
             {
                 FaultColumn = _names[i];
                 return RowOutcome.NotANumber;

@@ -22,7 +22,11 @@ internal static class StatusDocuments
 
     public sealed record InputDoc(string Tag, string Role, double? Value, string Unit, DateTimeOffset? SourceTime, double? AgeSeconds, string State, string Quality, uint StatusCode);
 
-    public sealed record TrendDoc(string Reactor, DateTimeOffset? From, DateTimeOffset? To, IReadOnlyDictionary<string, TrendSeries> Series);
+    public sealed record TrendDoc(string Reactor, DateTimeOffset? From, DateTimeOffset? To, IReadOnlyDictionary<string, TrendSeries> Series)
+    {
+        /// <summary>Biomass re-propagated after offline samples (the newest correction per cycle; table corrected_estimates), or null when none.</summary>
+        public TrendSeries? CorrectedBiomass { get; init; }
+    }
 
     public sealed record TrendSeries(string Unit, IReadOnlyList<long> T, IReadOnlyList<double?> V, IReadOnlyList<int> Q);
 

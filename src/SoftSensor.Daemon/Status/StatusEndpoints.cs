@@ -48,7 +48,7 @@ internal static class StatusEndpoints
     private static DaemonDoc Current(StatusBoard board, MqttLink link, SoftSensorOptions o, TimeProvider time) =>
         new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(), board.All.Select(Reactor).ToList());
 
-    private static async Task<IResult> TrendsAsync(string? reactor, double? hours, SqliteStore store, IOptions<SoftSensorOptions> o, CancellationToken ct)
+    private static async Task<IResult> TrendsAsync(string? reactor, double? hours, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, CancellationToken ct)
     {
         var id = reactor ?? o.Value.Reactors.FirstOrDefault()?.Id;
         if (id is null || o.Value.Reactors.All(r => r.Id != id))
@@ -79,7 +79,14 @@ internal static class StatusEndpoints
             }
         }
 
-        return Results.Json(new TrendDoc(id, from, to, series), Json);
+        var corrected = samples.Latest(id, from, to.Value);
+        int every = Math.Max(1, (corrected.Count + MaxPoints - 1) / MaxPoints);
+        var kept = corrected.Where((_, i) => i % every == 0 || i == corrected.Count - 1).ToList();
+        return Results.Json(new TrendDoc(id, from, to, series)
+        {
+            CorrectedBiomass = kept.Count == 0 ? null
+                : new TrendSeries("g/L", kept.Select(p => p.Time.ToUnixTimeMilliseconds()).ToList(), kept.Select(p => Finite(p.BiomassGPerL)).ToList(), kept.Select(_ => 0).ToList()),
+        }, Json);
     }
 
     private static async Task<IResult> EstimatesAsync(string reactor, string? name, DateTimeOffset? from, DateTimeOffset? to, int? limit, SqliteStore store, CancellationToken ct)

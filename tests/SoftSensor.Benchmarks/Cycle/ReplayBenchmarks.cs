@@ -1,54 +1,44 @@
 using BenchmarkDotNet.Attributes;
 using Microsoft.Extensions.Logging.Abstractions;
 using SoftSensor.Daemon.Replay;
-using SoftSensor.Simulation.Output;
-using SoftSensor.Simulation.Scenarios;
 
 namespace SoftSensor.Benchmarks.Cycle;
 
 /// <summary>
-/// The whole replay from CSV: parse each row of the simulator's 24 h glycerol history (8,641 rows,
-/// 13 tags), align for the analyser dead time, run the cycle, format the estimates.csv row (to a
-/// null stream, so the disk is not measured) and keep the report series. Rows per second =
-/// rows / mean time. Run: dotnet run -c Release --project tests/SoftSensor.Benchmarks -- --filter '*ReplayBenchmarks*'
+/// The whole replay from CSV as <c>softsensor replay --no-report</c> runs it, over an in-memory
+/// history of 103,692 rows (<see cref="ReplayHistory"/>): decode and split each line, parse the
+/// timestamp and 13 numbers, align for the analyser dead time, run the cycle, keep the report
+/// series, format the estimates.csv row and encode it as UTF-8 into a reused memory stream (so the
+/// disk is not measured). The report and its plots are not part of the figure. Rows per second =
+/// 103,692 / mean time. Run: dotnet run -c Release --project tests/SoftSensor.Benchmarks -- --filter '*ReplayBenchmarks*' --job short
 /// </summary>
 [MemoryDiagnoser]
 [InProcess]
 public class ReplayBenchmarks
 {
-    private byte[] _history = [];
-    private ReplayConfig _config = null!;
-    private List<ScheduledSample> _samples = [];
+    private ReplayHistory _history = null!;
+    private MemoryStream _estimates = null!;
 
     [GlobalSetup]
     public void Setup()
     {
-        string root = GlycerolCycleFixture.RepoRoot();
-        string dir = Directory.CreateTempSubdirectory("softsensor-bench-").FullName;
-        SimulationRun.Run(ScenarioLoader.Load(Path.Combine(root, "config", "scenarios", "glycerol.json")), 42, 24, dir);
-        _history = File.ReadAllBytes(Path.Combine(dir, "history.csv"));
-        if (!ReplayConfigLoader.TryLoad(Path.Combine(root, "config", "replay-glycerol.json"), out var config, out _, out var error))
-        {
-            throw new InvalidOperationException(error);
-        }
-
-        _config = config!;
-        OfflineSampleFile.TryRead(Path.Combine(dir, "offline.csv"), _config.Offline!, _samples, [], out _);
-        Directory.Delete(dir, recursive: true);
+        _history = ReplayHistory.Create();
+        _estimates = new MemoryStream(64 << 20);
     }
 
-    /// <summary>Rows in the history file (the benchmark's unit of work).</summary>
-    public int Rows => _history.Count(b => b == (byte)'\n') - 1;
-
     [Benchmark]
-    public long ReplayGlycerolDay()
+    public long Replay100kRows() => ReplayOnce(_history, _estimates);
+
+    /// <summary>One replay of <paramref name="history"/>, estimates.csv written into <paramref name="estimates"/> (rewound first).</summary>
+    internal static long ReplayOnce(ReplayHistory history, MemoryStream estimates)
     {
-        ReplayConfigLoader.TryLoad(Path.Combine(GlycerolCycleFixture.RepoRoot(), "config", "replay-glycerol.json"), out _, out var cycle, out _);
-        using var input = new MemoryStream(_history, writable: false);
-        using var sink = new StreamWriter(Stream.Null);
-        using var estimates = new EstimatesCsvWriter(sink);
-        var result = new ReplayRunner(cycle!, NullLogger.Instance).Run("history.csv", input, _config.History, _samples, estimates,
-            new ReplaySeries(_config.ReportPoints), new ReplayOptions(), CancellationToken.None);
+        ReplayConfigLoader.TryLoad(ReplayHistory.ConfigPath, out var config, out var cycle, out _);
+        estimates.SetLength(0);
+        using var input = new MemoryStream(history.Csv, writable: false);
+        using var csv = new StreamWriter(estimates, new System.Text.UTF8Encoding(false), 1 << 16, leaveOpen: true);
+        using var writer = new EstimatesCsvWriter(csv);
+        var result = new ReplayRunner(cycle!, NullLogger.Instance).Run("history.csv", input, config!.History, history.Samples, writer,
+            new ReplaySeries(config.ReportPoints), new ReplayOptions(), CancellationToken.None);
         return result.Cycles;
     }
 }
