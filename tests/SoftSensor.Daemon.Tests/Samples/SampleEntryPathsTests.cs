@@ -49,6 +49,31 @@ public sealed class SampleEntryPathsTests(MosquittoFixture broker) : IClassFixtu
     }
 
     [Fact]
+    public async Task SampleCommand_over_mqtt_refused_answers_every_problem_on_the_result_topic_and_counts_it()
+    {
+        await using var daemon = await TestDaemon.StartAsync(TestConfigs.HandCase(broker.Port, "samplemqtt"));
+        await using var client = await TestMqttClient.ConnectAsync(broker.Port, "samplemqtt-test");
+        string topic = "softsensor/pilot/samplemqtt/r1/command/sample";
+        await client.SubscribeAsync(topic + "/result");
+        var until = DateTime.UtcNow + TimeSpan.FromSeconds(10);
+        while (!daemon.Get<Daemon.Mqtt.MqttLink>().IsSubscribed(topic))
+        {
+            Assert.True(DateTime.UtcNow < until, "sample command topic not subscribed");
+            await Task.Delay(20);
+        }
+
+        await client.PublishAsync(topic, """{"kind":"od","sampledAt":"2026-03-01T10:00:00Z","od":-2,"odSigma":0.1,"factorGPerLPerOd":0.38}""");
+        var (_, reply) = await client.WaitForAsync((t, _) => t == topic + "/result", TimeSpan.FromSeconds(5), "refusal");
+        using var doc = JsonDocument.Parse(reply);
+        Assert.False(doc.RootElement.GetProperty("accepted").GetBoolean());
+        var problems = doc.RootElement.GetProperty("problems").EnumerateArray().Select(p => p.GetString()).ToList();
+        Assert.Contains("od is -2 (expected 0 or more OD units)", problems);
+        Assert.Contains("factorSigmaGPerLPerOd is missing (expected 0 or more g/L per OD unit)", problems);
+        Assert.Empty(daemon.Get<SampleBook>().List("r1"));
+        Assert.Contains("softsensor_operator_inputs_rejected_total{reactor=\"r1\"}", daemon.Get<Daemon.Status.PrometheusExporter>().Render(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task SampleForm_post_stores_a_substrate_assay_and_the_page_lists_it_as_recorded()
     {
         await using var daemon = await TestDaemon.StartAsync(TestConfigs.HandCase(broker.Port, "sampleform"));
