@@ -12,6 +12,14 @@ internal sealed class ReactorOptions
     /// <summary>Cycle period, e.g. <c>00:00:10</c>.</summary>
     public TimeSpan CyclePeriod { get; set; } = TimeSpan.FromSeconds(10);
 
+    /// <summary>
+    /// A tag of the map whose arrival runs the cycle at once (e.g. the off-gas analyser's last
+    /// channel of a reading); the cycle then also runs one <see cref="CyclePeriod"/> after the
+    /// previous one when the tag stays away, so stale inputs still turn the estimates Bad. Empty:
+    /// the cycle runs on the period only.
+    /// </summary>
+    public string CycleTrigger { get; set; } = "";
+
     /// <summary>Tag map: plant tag name → how to read it and what it means.</summary>
     public Dictionary<string, TagOptions> Tags { get; set; } = new(StringComparer.Ordinal);
 

@@ -47,6 +47,11 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
                 errors.Add($"{key}:tags is empty (expected a tag map)");
             }
 
+            if (r.CycleTrigger.Length > 0 && !r.Tags.ContainsKey(r.CycleTrigger))
+            {
+                errors.Add($"{key}:cycleTrigger is '{r.CycleTrigger}' (expected a tag of this reactor's map, or empty)");
+            }
+
             var roles = new HashSet<SignalRole>();
             foreach (var (tag, t) in r.Tags)
             {

@@ -11,12 +11,18 @@ namespace SoftSensor.Daemon.Pipeline;
 /// Hands every frame of every pipeline to every registered <see cref="IEstimateSink"/> (DI:
 /// <c>services.AddSingleton&lt;IEstimateSink, MySink&gt;()</c>), from one task: a sink is never
 /// called concurrently, and sees each reactor's frames in cycle order. A failing sink is logged
-/// and counted; the others still get the frame. Stops after draining what was queued.
+/// and counted; the others still get the frame. Frames queued together (several reactors' cycles
+/// ending at once) go to an <see cref="IEstimateBatchSink"/> in one call, up to
+/// <see cref="MaxBatch"/>: one store transaction and all MQTT publishes in flight together instead
+/// of one round trip each. Stops after draining what was queued.
 /// </summary>
 internal sealed class FrameDispatcher : BackgroundService
 {
     private readonly Channel<(EstimateFrame Frame, long ArrivalTimestamp)> _queue =
         Channel.CreateBounded<(EstimateFrame, long)>(new BoundedChannelOptions(4096) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait });
+
+    /// <summary>Most frames handed to the sinks in one call.</summary>
+    public const int MaxBatch = 256;
 
     private readonly IEstimateSink[] _sinks;
     private readonly DaemonMetrics _metrics;
@@ -55,30 +61,66 @@ internal sealed class FrameDispatcher : BackgroundService
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
         // Drain until the writer completes (at stop), so frames queued before the stop reach the store.
-        await foreach (var (frame, arrival) in _queue.Reader.ReadAllAsync(CancellationToken.None))
+        var reader = _queue.Reader;
+        var frames = new List<EstimateFrame>(MaxBatch);
+        var arrivals = new List<long>(MaxBatch);
+        while (await reader.WaitToReadAsync(CancellationToken.None))
         {
-            await DispatchAsync(frame, stoppingToken.IsCancellationRequested ? CancellationToken.None : stoppingToken);
-            if (arrival != 0)
+            frames.Clear();
+            arrivals.Clear();
+            while (frames.Count < MaxBatch && reader.TryRead(out var item))
             {
-                _metrics.TagToEstimateSeconds.Record(_time.GetElapsedTime(arrival).TotalSeconds, new KeyValuePair<string, object?>("reactor", frame.Reactor));
+                frames.Add(item.Frame);
+                arrivals.Add(item.ArrivalTimestamp);
+            }
+
+            await DispatchAsync(frames, stoppingToken.IsCancellationRequested ? CancellationToken.None : stoppingToken);
+            for (int i = 0; i < frames.Count; i++)
+            {
+                if (arrivals[i] != 0)
+                {
+                    _metrics.TagToEstimateSeconds.Record(_time.GetElapsedTime(arrivals[i]).TotalSeconds, new KeyValuePair<string, object?>("reactor", frames[i].Reactor));
+                }
             }
         }
     }
 
-    private async Task DispatchAsync(EstimateFrame frame, CancellationToken cancellationToken)
+    private async Task DispatchAsync(List<EstimateFrame> frames, CancellationToken cancellationToken)
     {
         foreach (var sink in _sinks)
         {
-            try
+            if (sink is IEstimateBatchSink batch && frames.Count > 1)
             {
-                await sink.WriteAsync(frame, cancellationToken);
+                try
+                {
+                    await batch.WriteBatchAsync(frames, cancellationToken);
+                }
+                catch (Exception e) when (e is not OperationCanceledException)
+                {
+                    Failed(sink, frames[0].Reactor, e);
+                }
+
+                continue;
             }
-            catch (Exception e) when (e is not OperationCanceledException)
+
+            foreach (var frame in frames)
             {
-                // A sink must not throw (IEstimateSink's contract); one that does must not starve the others.
-                _metrics.PublishFailures.Add(1, new KeyValuePair<string, object?>("sink", sink.Name));
-                PipelineLog.SinkFailed(_logger, e, sink.Name, frame.Reactor);
+                try
+                {
+                    await sink.WriteAsync(frame, cancellationToken);
+                }
+                catch (Exception e) when (e is not OperationCanceledException)
+                {
+                    Failed(sink, frame.Reactor, e);
+                }
             }
         }
+    }
+
+    private void Failed(IEstimateSink sink, string reactor, Exception e)
+    {
+        // A sink must not throw (IEstimateSink's contract); one that does must not starve the others.
+        _metrics.PublishFailures.Add(1, new KeyValuePair<string, object?>("sink", sink.Name));
+        PipelineLog.SinkFailed(_logger, e, sink.Name, reactor);
     }
 }

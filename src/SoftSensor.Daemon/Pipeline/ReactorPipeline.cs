@@ -11,14 +11,16 @@ namespace SoftSensor.Daemon.Pipeline;
 /// <summary>
 /// One reactor: its sources write samples into a bounded channel, one task moves them into the
 /// signal store, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
-/// with the aligned inputs; the frame goes to the dispatcher and the status board. The estimator
+/// with the aligned inputs; the frame goes to the dispatcher and the status board. With a
+/// <c>cycleTrigger</c> tag the cycle runs as soon as that tag's sample is taken in, and at the latest
+/// one period after the previous cycle. The estimator
 /// state is checkpointed every N cycles and on stop, with the batch it belongs to.
 /// Batches: at each cycle the pipeline reads the reactor's open batch
 /// (<see cref="Batches.BatchBook.Current"/>); when it is not the batch the estimator state belongs
 /// to, it calls <see cref="IReactorCycle.BeginBatch"/> with the batch's initial conditions before
 /// the cycle runs, and checkpoints right after it. A checkpoint of another batch is not restored.
 /// </summary>
-internal sealed class ReactorPipeline
+internal sealed partial class ReactorPipeline
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
@@ -29,6 +31,7 @@ internal sealed class ReactorPipeline
     private readonly InputHealth[] _health;
     private readonly Lock _gate = new();
     private readonly KeyValuePair<string, object?> _reactorTag;
+    private readonly Channel<bool>? _trigger;
     private string _stateBatch = string.Empty;
     private long _cycles;
     private long _newestArrival;
@@ -44,6 +47,9 @@ internal sealed class ReactorPipeline
         _sources = sources;
         _services = services;
         _reactorTag = new("reactor", options.Id);
+        _trigger = options.CycleTrigger.Length > 0
+            ? Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite, SingleReader = true })
+            : null;
     }
 
     /// <summary>The reactor id.</summary>
@@ -68,7 +74,7 @@ internal sealed class ReactorPipeline
             FullMode = BoundedChannelFullMode.Wait,
         });
         PipelineLog.Started(_services.Logger, Reactor, _options.CyclePeriod, _signals.Bindings.Count, string.Join(", ", _sources.Select(s => s.Name)));
-        var tasks = new List<Task> { IngestAsync(channel.Reader, cancellationToken), CycleLoopAsync(cancellationToken) };
+        var tasks = new List<Task> { IngestAsync(channel.Reader, cancellationToken), _trigger is null ? CycleLoopAsync(cancellationToken) : TriggeredLoopAsync(_trigger.Reader, cancellationToken) };
         tasks.AddRange(_sources.Select(s => RunSourceAsync(s, channel.Writer, cancellationToken)));
         try
         {
@@ -96,6 +102,10 @@ internal sealed class ReactorPipeline
         {
             Volatile.Write(ref _newestArrival, _services.Time.GetTimestamp());
             Interlocked.Increment(ref _accepted);
+            if (_trigger is not null && string.Equals(sample.Tag, _options.CycleTrigger, StringComparison.Ordinal))
+            {
+                _trigger.Writer.TryWrite(true);
+            }
             _services.Metrics.SamplesIn.Add(1, _reactorTag);
         }
         else
@@ -182,52 +192,6 @@ internal sealed class ReactorPipeline
             // error. Publish a Bad frame rather than stop the reactor's pipeline, and log it.
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
             return new EstimateFrame(Reactor, batchId, now, SampleQuality.Bad, []);
-        }
-    }
-
-    private async Task CycleLoopAsync(CancellationToken cancellationToken)
-    {
-        using var timer = new PeriodicTimer(_options.CyclePeriod, _services.Time);
-        while (true)
-        {
-            _waitingForTick = true;
-            bool ticked = await timer.WaitForNextTickAsync(cancellationToken);
-            _waitingForTick = false;
-            if (!ticked)
-            {
-                return;
-            }
-
-            await RunCycleAsync(cancellationToken);
-        }
-    }
-
-    private async Task IngestAsync(ChannelReader<Sample> reader, CancellationToken cancellationToken)
-    {
-        while (await reader.WaitToReadAsync(cancellationToken))
-        {
-            while (reader.TryRead(out var sample))
-            {
-                Accept(sample);
-            }
-        }
-    }
-
-    private async Task RunSourceAsync(ISampleSource source, ChannelWriter<Sample> writer, CancellationToken cancellationToken)
-    {
-        try
-        {
-            await source.RunAsync(writer, cancellationToken);
-        }
-        catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
-        {
-            // Normal stop.
-        }
-        catch (Exception e)
-        {
-            // A source owns its reconnect loop; one that still fails is logged, and its inputs go stale
-            // (the estimates turn Bad) instead of the whole daemon stopping.
-            PipelineLog.SourceFailed(_services.Logger, e, Reactor, source.Name);
         }
     }
 

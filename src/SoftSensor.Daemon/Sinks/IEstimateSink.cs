@@ -16,3 +16,14 @@ internal interface IEstimateSink
     /// <summary>Takes one frame.</summary>
     ValueTask WriteAsync(EstimateFrame frame, CancellationToken cancellationToken);
 }
+
+/// <summary>
+/// A sink that takes the frames the dispatcher has queued together in one call (in dispatch order,
+/// each reactor's in cycle order): the store commits them in one transaction, MQTT keeps all their
+/// publishes in flight at once. Same threading and failure contract as <see cref="IEstimateSink"/>.
+/// </summary>
+internal interface IEstimateBatchSink : IEstimateSink
+{
+    /// <summary>Takes several frames.</summary>
+    ValueTask WriteBatchAsync(IReadOnlyList<EstimateFrame> frames, CancellationToken cancellationToken);
+}

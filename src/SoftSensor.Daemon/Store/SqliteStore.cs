@@ -12,7 +12,10 @@ namespace SoftSensor.Daemon.Store;
 /// for forwarders (a frame is stored before any network sink sees it; a forwarder reads
 /// <see cref="FramesAfterAsync"/> from its cursor and advances the cursor only once its target
 /// acknowledged). Writes go through one connection, one at a time; reads open their own pooled
-/// connections and run beside the writer (WAL). Thread-safe.
+/// connections and run beside the writer (WAL). The writer never checkpoints the WAL itself
+/// (<c>wal_autocheckpoint=0</c>): a PASSIVE checkpoint runs every second on its own connection, off
+/// the dispatch path, so the fsync of a checkpoint never stalls a frame on its way to MQTT.
+/// Thread-safe.
 /// </summary>
 internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
 {
@@ -20,6 +23,7 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     private readonly SqliteConnection _writer;
     private readonly string _connectionString;
     private readonly TimeProvider _time;
+    private readonly ITimer _checkpointer;
     private IFrameCompanion[] _companions = [];
 
     public SqliteStore(IOptions<SoftSensorOptions> options, TimeProvider time)
@@ -47,6 +51,26 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         }
 
         Execute(_writer, $"PRAGMA user_version={StoreSchema.Version};");
+        Execute(_writer, "PRAGMA wal_autocheckpoint=0;");
+        // Real time, whatever the process clock: this is file maintenance, not part of the process.
+        _checkpointer = TimeProvider.System.CreateTimer(_ => CheckpointWal(), null, TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1));
+    }
+
+    private void CheckpointWal()
+    {
+        try
+        {
+            using var c = OpenReader();
+            Execute(c, "PRAGMA wal_checkpoint(PASSIVE);");
+        }
+        catch (SqliteException)
+        {
+            // Busy or closing: the next tick tries again; the WAL only grows meanwhile.
+        }
+        catch (ObjectDisposedException)
+        {
+            // Disposed while the timer fired.
+        }
     }
 
     /// <summary>Full path of the database file.</summary>
@@ -67,58 +91,82 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     }
 
     /// <summary>Stores a frame with all its values (and the companions' rows) in one transaction; returns the frame's id.</summary>
-    public async ValueTask<long> WriteFrameAsync(EstimateFrame frame, CancellationToken cancellationToken)
+    public async ValueTask<long> WriteFrameAsync(EstimateFrame frame, CancellationToken cancellationToken) =>
+        (await WriteFramesAsync([frame], cancellationToken))[0];
+
+    /// <summary>
+    /// Stores frames with all their values (and the companions' rows) in one transaction, in order;
+    /// returns their ids. One commit for the frames several reactors finished together.
+    /// </summary>
+    public async ValueTask<long[]> WriteFramesAsync(IReadOnlyList<EstimateFrame> frames, CancellationToken cancellationToken)
     {
         await _writeGate.WaitAsync(cancellationToken);
         try
         {
+            var ids = new long[frames.Count];
+            var after = new List<Action>();
             using var tx = _writer.BeginTransaction();
-            long ms = frame.SourceTime.ToUnixTimeMilliseconds();
             using var f = _writer.CreateCommand();
             f.Transaction = tx;
             f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality) VALUES ($r, $b, $t, $q) RETURNING id";
-            f.Parameters.AddWithValue("$r", frame.Reactor);
-            f.Parameters.AddWithValue("$b", frame.BatchId);
-            f.Parameters.AddWithValue("$t", ms);
-            f.Parameters.AddWithValue("$q", (int)frame.Quality);
-            long id = (long)f.ExecuteScalar()!;
+            var fr = f.Parameters.Add("$r", SqliteType.Text);
+            var fb = f.Parameters.Add("$b", SqliteType.Text);
+            var ft = f.Parameters.Add("$t", SqliteType.Integer);
+            var fq = f.Parameters.Add("$q", SqliteType.Integer);
+            f.Prepare();
             using var e = _writer.CreateCommand();
             e.Transaction = tx;
             e.CommandText = "INSERT INTO estimates (frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code) VALUES ($f, $r, $n, $t, $v, $s, $u, $q, $c)";
-            var pf = e.Parameters.AddWithValue("$f", id);
-            e.Parameters.AddWithValue("$r", frame.Reactor);
+            var pf = e.Parameters.Add("$f", SqliteType.Integer);
+            var pr = e.Parameters.Add("$r", SqliteType.Text);
             var pn = e.Parameters.Add("$n", SqliteType.Text);
-            e.Parameters.AddWithValue("$t", ms);
+            var pt = e.Parameters.Add("$t", SqliteType.Integer);
             var pv = e.Parameters.Add("$v", SqliteType.Real);
             var ps = e.Parameters.Add("$s", SqliteType.Real);
             var pu = e.Parameters.Add("$u", SqliteType.Text);
             var pq = e.Parameters.Add("$q", SqliteType.Integer);
             var pc = e.Parameters.Add("$c", SqliteType.Integer);
             e.Prepare();
-            foreach (var v in frame.Values)
+            for (int k = 0; k < frames.Count; k++)
             {
-                pn.Value = v.Name;
-                pv.Value = double.IsFinite(v.Value) ? v.Value : DBNull.Value;
-                ps.Value = double.IsFinite(v.Sigma) ? v.Sigma : DBNull.Value;
-                pu.Value = v.Unit;
-                pq.Value = (int)v.Quality;
-                pc.Value = (long)v.StatusCode;
-                e.ExecuteNonQuery();
-            }
+                var frame = frames[k];
+                long ms = frame.SourceTime.ToUnixTimeMilliseconds();
+                fr.Value = frame.Reactor;
+                fb.Value = frame.BatchId;
+                ft.Value = ms;
+                fq.Value = (int)frame.Quality;
+                long id = (long)f.ExecuteScalar()!;
+                ids[k] = id;
+                pf.Value = id;
+                pr.Value = frame.Reactor;
+                pt.Value = ms;
+                foreach (var v in frame.Values)
+                {
+                    pn.Value = v.Name;
+                    pv.Value = double.IsFinite(v.Value) ? v.Value : DBNull.Value;
+                    ps.Value = double.IsFinite(v.Sigma) ? v.Sigma : DBNull.Value;
+                    pu.Value = v.Unit;
+                    pq.Value = (int)v.Quality;
+                    pc.Value = (long)v.StatusCode;
+                    e.ExecuteNonQuery();
+                }
 
-            Action?[] after = _companions.Length == 0 ? [] : new Action?[_companions.Length];
-            for (int i = 0; i < _companions.Length; i++)
-            {
-                after[i] = _companions[i].Write(frame, _writer, tx);
+                foreach (var companion in _companions)
+                {
+                    if (companion.Write(frame, _writer, tx) is { } a)
+                    {
+                        after.Add(a);
+                    }
+                }
             }
 
             tx.Commit();
             foreach (var a in after)
             {
-                a?.Invoke();
+                a();
             }
 
-            return id;
+            return ids;
         }
         finally
         {
@@ -195,6 +243,8 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
 
     public void Dispose()
     {
+        _checkpointer.Dispose();
+        CheckpointWal();
         _writer.Dispose();
         _writeGate.Dispose();
     }

@@ -125,6 +125,41 @@ public sealed class ReactorPipelineTests : IDisposable
         await run;
     }
 
+    [Fact]
+    public async Task RunAsync_with_cycle_trigger_cycles_on_the_trigger_tag_and_else_after_one_period()
+    {
+        var o = new SoftSensorOptions();
+        var keys = TestConfigs.HandCase(1883, "unit", TimeSpan.FromSeconds(5), "00:00:01");
+        keys["reactors:0:cycleTrigger"] = "qi201";
+        new ConfigurationBuilder().AddInMemoryCollection(keys).Build().Bind(o);
+        var reactor = o.Reactors[0];
+        var bindings = TagBinding.FromOptions(reactor);
+        var board = new StatusBoard();
+        var services = new PipelineServices(_time, new FrameDispatcher([], _metrics, _time, NullLogger<FrameDispatcher>.Instance), board, null, _metrics, NullLogger.Instance, 10);
+        var pipeline = new ReactorPipeline(reactor, bindings, new OffGasCycleFactory().Create(reactor, bindings), [], services);
+        using var cts = new CancellationTokenSource();
+        var run = pipeline.RunAsync(cts.Token);
+
+        await WaitUntilAsync(() => pipeline.IsWaitingForTick);
+        var now = _time.GetUtcNow();
+        pipeline.Accept(new Sample("fic101", 10.0, now, SampleQuality.Good, 0));
+        pipeline.Accept(new Sample("qi202", 1.500, now, SampleQuality.Good, 0));
+        pipeline.Accept(new Sample("li301", 10.0, now, SampleQuality.Good, 0));
+        Assert.Null(board.Get("r1")); // no trigger yet, the clock has not moved
+        pipeline.Accept(new Sample("qi201", 19.500, now, SampleQuality.Good, 0));
+        await WaitUntilAsync(() => board.Get("r1")?.Cycle == 1);
+        Assert.Equal(T0, board.Get("r1")!.CycleTime); // ran at once, on the trigger, without a tick
+        Assert.Equal(38.629, Value(board.Get("r1")!.Frame!, EstimateNames.Our).Value, 0.0005); // METHODS.md section 6 hand case
+
+        await WaitUntilAsync(() => pipeline.IsWaitingForTick);
+        _time.Advance(TimeSpan.FromSeconds(1)); // no trigger for one period: the fallback cycle runs
+        await WaitUntilAsync(() => board.Get("r1")?.Cycle == 2);
+        Assert.Equal(T0.AddSeconds(1), board.Get("r1")!.CycleTime);
+
+        await cts.CancelAsync();
+        await run;
+    }
+
     private static async Task WaitUntilAsync(Func<bool> condition)
     {
         // Waits for the pipeline's own task to reach a state; the clock itself is fake.
