@@ -66,7 +66,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         int statusPort = ChildProcess.FreePort();
         string config = Path.Combine(dir, "load.json");
         var tags = LoadConfig.Write(config, demoConfig, reactors, port, statusPort, Path.Combine(dir, "store.db"));
-        string daemonDll = Path.Combine(AppContext.BaseDirectory, "softsensor.dll");
+        string daemonDll = options.DaemonDll ?? Path.Combine(AppContext.BaseDirectory, "softsensor.dll");
         await using var daemon = ChildProcess.Start("dotnet", [daemonDll, "run", "--config", config], Path.Combine(dir, "daemon.log"));
         await using var metrics = new DaemonMetricsReader(statusPort);
         await using var probe = new LatencyProbe(port);
