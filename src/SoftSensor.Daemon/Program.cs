@@ -14,6 +14,8 @@ internal static class Program
             return CliOutput.BadInput(Console.Error, string.Join("; ", parse.Errors.Select(e => e.Message)));
         }
 
-        return await parse.InvokeAsync();
+        // On SIGTERM/Ctrl+C the verb's token is cancelled and the host drains (final checkpoint, outbox, MQTT
+        // offline) within its shutdown budget; System.CommandLine's default 2 s would end the process first (exit 143).
+        return await parse.InvokeAsync(new System.CommandLine.InvocationConfiguration { ProcessTerminationTimeout = Hosting.DaemonHost.ShutdownTimeout + TimeSpan.FromSeconds(5) });
     }
 }

@@ -19,7 +19,11 @@ public sealed record EstimateFrame(
     string BatchId,
     DateTimeOffset SourceTime,
     SampleQuality Quality,
-    IReadOnlyList<EstimateValue> Values);
+    IReadOnlyList<EstimateValue> Values)
+{
+    /// <summary>The batch's phase at this cycle (an id of <see cref="Batches.BatchPhases"/>; empty when no batch is open).</summary>
+    public string Phase { get; init; } = "";
+}
 
 /// <summary>Stable ids of the estimates (used as MQTT topic leaves, line-protocol fields, CSV columns).</summary>
 public static class EstimateNames

@@ -44,13 +44,22 @@ public enum SignalRole
     AnalyserCalibrating,
     /// <summary>Totaliser of broth removed by samples and harvests since the start, L.</summary>
     RemovedVolumeL,
+
+    /// <summary>The batch id from the controller (text, or a number used as text); not an input of the cycle: a change starts a new batch.</summary>
+    BatchId,
+
+    /// <summary>The controller's numeric phase code, mapped to a phase by the reactor's <c>batches:phaseCodes</c>; not an input of the cycle.</summary>
+    BatchPhaseCode,
 }
 
 /// <summary>Helpers on <see cref="SignalRole"/>.</summary>
 public static class SignalRoles
 {
+    /// <summary>True for the batch roles, whose samples drive the batch lifecycle instead of entering the cycle.</summary>
+    public static bool IsBatchRole(SignalRole role) => role is SignalRole.BatchId or SignalRole.BatchPhaseCode;
+
     /// <summary>Number of roles.</summary>
-    public const int Count = (int)SignalRole.RemovedVolumeL + 1;
+    public const int Count = (int)SignalRole.BatchPhaseCode + 1;
 
     /// <summary>The unit of a role's value, as shown to users.</summary>
     public static string UnitOf(SignalRole role) => role switch
@@ -66,6 +75,8 @@ public static class SignalRoles
         SignalRole.FeedRateLPerH or SignalRole.BaseRateLPerH => "L/h",
         SignalRole.Ph => "pH",
         SignalRole.AnalyserCalibrating => "1",
+        SignalRole.BatchId => "id",
+        SignalRole.BatchPhaseCode => "code",
         _ => throw new ArgumentOutOfRangeException(nameof(role), role, "unknown signal role"),
     };
 }

@@ -2,6 +2,7 @@ using System.Collections.Concurrent;
 using System.Globalization;
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
+using SoftSensor.Core.Batches;
 using SoftSensor.Daemon.Configuration;
 
 namespace SoftSensor.Daemon.Batches;
@@ -11,7 +12,7 @@ namespace SoftSensor.Daemon.Batches;
 /// restart in the middle of a batch resumes the same batch id. The open batch of each reactor is
 /// cached; a reactor has at most one open batch. Thread-safe.
 /// </summary>
-internal sealed class BatchBook
+internal sealed partial class BatchBook
 {
     private const string Schema = """
         CREATE TABLE IF NOT EXISTS batch_runs (
@@ -37,16 +38,29 @@ internal sealed class BatchBook
         Directory.CreateDirectory(Path.GetDirectoryName(full)!);
         _connectionString = new SqliteConnectionStringBuilder { DataSource = full, Pooling = true, DefaultTimeout = 5 }.ToString();
         using var c = Open();
-        Run(c, Schema);
+        Run(c, Schema + PhaseSchema);
         using var q = c.CreateCommand();
         q.CommandText = "SELECT reactor, batch_id, started_ms, ended_ms, volume_l, biomass_g_per_l, biomass_sigma_g_per_l, substrate_g_per_l FROM batch_runs WHERE ended_ms IS NULL";
-        using var r = q.ExecuteReader();
-        while (r.Read())
+        var open = new List<BatchRun>();
+        using (var r = q.ExecuteReader())
         {
-            var run = Read(r);
-            _open[run.Reactor] = run;
+            while (r.Read())
+            {
+                open.Add(Read(r));
+            }
+        }
+
+        foreach (var run in open)
+        {
+            _open[run.Reactor] = WithPhase(c, run);
         }
     }
+
+    /// <summary>Raised after a batch was started and stored (on the caller's thread).</summary>
+    public event Action<BatchRun>? Started;
+
+    /// <summary>Raised after a batch was ended and stored (on the caller's thread): the batch report is written from it.</summary>
+    public event Action<BatchRun>? Ended;
 
     /// <summary>The open batch of a reactor, or null.</summary>
     public BatchRun? Current(string reactor) => _open.TryGetValue(reactor, out var b) ? b : null;
@@ -55,6 +69,7 @@ internal sealed class BatchBook
     public (BatchRun? Run, IReadOnlyList<string> Problems) Start(string reactor, BatchStart start)
     {
         var problems = start.Problems().ToList();
+        BatchRun started;
         lock (_gate)
         {
             if (Current(reactor) is { } open)
@@ -77,8 +92,9 @@ internal sealed class BatchBook
                 return (null, problems);
             }
 
-            var run = new BatchRun(reactor, start.BatchId!, _time.GetUtcNow(), null, start.InitialVolumeL, start.InoculumBiomassGPerL,
-                start.InoculumBiomassSigmaGPerL, start.InitialSubstrateGPerL);
+            var now = _time.GetUtcNow();
+            var run = new BatchRun(reactor, start.BatchId!, now, null, start.InitialVolumeL, start.InoculumBiomassGPerL,
+                start.InoculumBiomassSigmaGPerL, start.InitialSubstrateGPerL, BatchPhases.Id(BatchPhase.Batch), now);
             using var insert = c.CreateCommand();
             insert.CommandText = "INSERT INTO batch_runs VALUES ($r, $b, $s, NULL, $v, $x, $sx, $su)";
             insert.Parameters.AddWithValue("$r", reactor);
@@ -89,14 +105,19 @@ internal sealed class BatchBook
             insert.Parameters.AddWithValue("$sx", run.InoculumBiomassSigmaGPerL);
             insert.Parameters.AddWithValue("$su", run.InitialSubstrateGPerL);
             insert.ExecuteNonQuery();
+            InsertPhase(c, reactor, new PhaseChange(run.BatchId, run.Phase, now, start.Source));
             _open[reactor] = run;
-            return (run, []);
+            started = run;
         }
+
+        Started?.Invoke(started);
+        return (started, []);
     }
 
     /// <summary>Ends the open batch of a reactor; the problem instead when none is open.</summary>
     public (BatchRun? Run, string? Problem) End(string reactor)
     {
+        BatchRun ended;
         lock (_gate)
         {
             if (Current(reactor) is not { } open)
@@ -104,7 +125,7 @@ internal sealed class BatchBook
                 return (null, $"reactor '{reactor}' has no open batch (expected a started batch)");
             }
 
-            var ended = open with { EndedAt = _time.GetUtcNow() };
+            ended = open with { EndedAt = _time.GetUtcNow() };
             using var c = Open();
             using var update = c.CreateCommand();
             update.CommandText = "UPDATE batch_runs SET ended_ms = $e WHERE reactor = $r AND batch_id = $b";
@@ -113,8 +134,28 @@ internal sealed class BatchBook
             update.Parameters.AddWithValue("$b", open.BatchId);
             update.ExecuteNonQuery();
             _open.TryRemove(reactor, out _);
-            return (ended, null);
         }
+
+        Ended?.Invoke(ended);
+        return (ended, null);
+    }
+
+    /// <summary>The batches of a reactor, newest first (at most <paramref name="limit"/>).</summary>
+    public IReadOnlyList<BatchRun> Runs(string reactor, int limit = 200)
+    {
+        using var c = Open();
+        using var q = c.CreateCommand();
+        q.CommandText = "SELECT reactor, batch_id, started_ms, ended_ms, volume_l, biomass_g_per_l, biomass_sigma_g_per_l, substrate_g_per_l FROM batch_runs WHERE reactor = $r ORDER BY started_ms DESC LIMIT $l";
+        q.Parameters.AddWithValue("$r", reactor);
+        q.Parameters.AddWithValue("$l", limit);
+        var list = new List<BatchRun>();
+        using var r = q.ExecuteReader();
+        while (r.Read())
+        {
+            list.Add(Read(r));
+        }
+
+        return list;
     }
 
     private SqliteConnection Open()

@@ -10,7 +10,8 @@ namespace SoftSensor.Daemon.Batches;
 /// <summary>
 /// Batch commands from MQTT: one topic per reactor, <c>{prefix}/{site}/{area}/{reactor}/command/batch</c>,
 /// JSON <c>{"command": "start", "batchId": ..., "initialVolumeL": ..., "inoculumBiomassGPerL": ...,
-/// "inoculumBiomassSigmaGPerL": ..., "initialSubstrateGPerL": ...}</c> or <c>{"command": "end"}</c>.
+/// "inoculumBiomassSigmaGPerL": ..., "initialSubstrateGPerL": ...}</c>, <c>{"command": "phase", "phase": "induced"}</c>
+/// or <c>{"command": "end"}</c>.
 /// The outcome goes to <c>.../command/batch/result</c> (not retained): the batch, or every problem.
 /// </summary>
 internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptions<SoftSensorOptions> options) : IHostedService
@@ -66,14 +67,17 @@ internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptio
             case "end":
                 var (ended, problem) = book.End(reactor);
                 return new BatchCommandReply(ended is not null, ended, problem is null ? [] : [problem]);
+            case "phase":
+                var (changed, refusal) = book.SetPhase(reactor, command.Phase, "operator");
+                return new BatchCommandReply(changed is not null, changed, refusal is null ? [] : [refusal]);
             default:
-                return new BatchCommandReply(false, null, [$"command is '{command?.Command}' (expected start or end)"]);
+                return new BatchCommandReply(false, null, [$"command is '{command?.Command}' (expected start, phase or end)"]);
         }
     }
 }
 
 /// <summary>A batch command as sent on the command topic.</summary>
-internal sealed record BatchCommand(string? Command, string? BatchId, double InitialVolumeL, double InoculumBiomassGPerL, double InoculumBiomassSigmaGPerL, double InitialSubstrateGPerL);
+internal sealed record BatchCommand(string? Command, string? BatchId, double InitialVolumeL, double InoculumBiomassGPerL, double InoculumBiomassSigmaGPerL, double InitialSubstrateGPerL, string? Phase = null);
 
 /// <summary>The answer on the result topic.</summary>
 internal sealed record BatchCommandReply(bool Applied, BatchRun? Batch, IReadOnlyList<string> Problems);

@@ -26,6 +26,12 @@ internal static class BatchForm
             var (run, problems) = book.Start(reactor, new BatchStart(form["batchId"].ToString(), N("initialVolumeL"), N("inoculumBiomassGPerL"), N("inoculumBiomassSigmaGPerL"), N("initialSubstrateGPerL")));
             return Page(book, o.Value, run is null ? "Refused: " + string.Join("; ", problems) : $"Started batch {run.BatchId} on {reactor}.");
         });
+        app.MapPost("/batches/{reactor}/phase", async (string reactor, HttpRequest request, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        {
+            var form = await request.ReadFormAsync(request.HttpContext.RequestAborted);
+            var (run, problem) = book.SetPhase(reactor, form["phase"].ToString(), "operator");
+            return Page(book, o.Value, run is null ? "Refused: " + problem : $"Batch {run.BatchId} on {reactor} is now in phase {run.Phase}.");
+        });
         app.MapPost("/batches/{reactor}/end", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
         {
             var (run, problem) = book.End(reactor);
@@ -36,7 +42,7 @@ internal static class BatchForm
     private static IResult Page(BatchBook book, SoftSensorOptions o, string message)
     {
         var h = new StringBuilder("<!doctype html><html><head><meta charset=\"utf-8\"><title>softsensor batches</title></head><body>");
-        h.Append("<h1>Batches</h1><p>Advisory soft sensor: not a safety instrumented system.</p>");
+        h.Append("<h1>Batches</h1><p>Advisory soft sensor: not a safety instrumented system. <a href=\"/\">Status</a> · <a href=\"/reports\">Batch reports</a></p>");
         if (message.Length > 0)
         {
             h.Append("<p id=\"outcome\">").Append(WebUtility.HtmlEncode(message)).Append("</p>");
@@ -49,6 +55,15 @@ internal static class BatchForm
             if (book.Current(r.Id) is { } run)
             {
                 h.Append(CultureInfo.InvariantCulture, $"<p>Open batch <b>{WebUtility.HtmlEncode(run.BatchId)}</b> since {run.StartedAt:O}: {run.InitialVolumeL} L, inoculum {run.InoculumBiomassGPerL} ± {run.InoculumBiomassSigmaGPerL} g/L, substrate {run.InitialSubstrateGPerL} g/L.</p>");
+                h.Append(CultureInfo.InvariantCulture, $"<p>Phase <b id=\"phase-{id}\">{WebUtility.HtmlEncode(run.Phase)}</b> since {run.PhaseSince:O}.</p>");
+                h.Append("<form method=\"post\" action=\"/batches/").Append(id).Append("/phase\"><select name=\"phase\">");
+                foreach (var p in Core.Batches.BatchPhases.All)
+                {
+                    string pid = Core.Batches.BatchPhases.Id(p);
+                    h.Append("<option").Append(pid == run.Phase ? " selected" : "").Append('>').Append(pid).Append("</option>");
+                }
+
+                h.Append("</select> <button>Set phase</button></form>");
                 h.Append("<form method=\"post\" action=\"/batches/").Append(id).Append("/end\"><button>End batch</button></form>");
             }
             else

@@ -3,7 +3,7 @@ namespace SoftSensor.Daemon.Batches;
 /// <summary>
 /// One batch of one reactor, from inoculation to its end: the id written with every estimate and the
 /// initial conditions the operator entered (volume, inoculum biomass with its standard uncertainty,
-/// initial substrate).
+/// initial substrate), and its current phase (an id of <see cref="Core.Batches.BatchPhases"/>) since when.
 /// </summary>
 internal sealed record BatchRun(
     string Reactor,
@@ -13,7 +13,9 @@ internal sealed record BatchRun(
     double InitialVolumeL,
     double InoculumBiomassGPerL,
     double InoculumBiomassSigmaGPerL,
-    double InitialSubstrateGPerL)
+    double InitialSubstrateGPerL,
+    string Phase = "batch",
+    DateTimeOffset? PhaseSince = null)
 {
     /// <summary>True until the batch is ended.</summary>
     public bool IsOpen => EndedAt is null;
@@ -32,6 +34,10 @@ internal sealed record BatchStart(
     double InoculumBiomassSigmaGPerL,
     double InitialSubstrateGPerL)
 {
+    /// <summary>Who started it (operator, or tag for a batch-id tag), stored with the first phase.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public string Source { get; init; } = "operator";
+
     /// <summary>Every problem of the command, each naming the field, the value and the expectation.</summary>
     public IReadOnlyList<string> Problems()
     {

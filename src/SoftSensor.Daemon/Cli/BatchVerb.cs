@@ -6,7 +6,7 @@ using SoftSensor.Daemon.Batches;
 namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
-/// <c>softsensor batch start|end|status --url http://127.0.0.1:PORT --reactor R ...</c>: batch commands
+/// <c>softsensor batch start|phase|end|status --url http://127.0.0.1:PORT --reactor R ...</c>: batch commands
 /// to a running daemon through its status API (<see cref="BatchEndpoints"/>). Prints the daemon's JSON answer;
 /// exit 2 with the daemon's problems on one stderr line when it refuses, 1 when it cannot be reached.
 /// </summary>
@@ -27,9 +27,12 @@ internal sealed class BatchVerb : IVerb
             new BatchStart(p.GetValue(id)!, p.GetValue(volume), p.GetValue(biomass), p.GetValue(sigma), p.GetValue(substrate)), Console.Out, Console.Error, ct));
         var end = new Command("end", "End the open batch of a reactor") { url, reactor };
         end.SetAction((p, ct) => SendAsync(p.GetValue(url)!, $"/api/batches/{p.GetValue(reactor)}/end", new { }, Console.Out, Console.Error, ct));
-        var status = new Command("status", "Show the open batch of a reactor") { url, reactor };
+        var phaseId = new Option<string>("--phase") { Description = $"phase: {Core.Batches.BatchPhases.Ids}", Required = true };
+        var phase = new Command("phase", "Move the open batch of a reactor to a phase") { url, reactor, phaseId };
+        phase.SetAction((p, ct) => SendAsync(p.GetValue(url)!, $"/api/batches/{p.GetValue(reactor)}/phase", new PhaseCommand(p.GetValue(phaseId)), Console.Out, Console.Error, ct));
+        var status = new Command("status", "Show the open batch of a reactor with its phase") { url, reactor };
         status.SetAction((p, ct) => SendAsync(p.GetValue(url)!, $"/api/batches/{p.GetValue(reactor)}", null, Console.Out, Console.Error, ct));
-        return new Command("batch", "Batch commands to a running daemon: start, end, status") { start, end, status };
+        return new Command("batch", "Batch commands to a running daemon: start, phase, end, status") { start, phase, end, status };
     }
 
     /// <summary>POSTs <paramref name="body"/> (GET when null) and prints the answer; the exit code.</summary>

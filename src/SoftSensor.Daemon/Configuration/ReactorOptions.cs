@@ -34,6 +34,33 @@ internal sealed class ReactorOptions
 
     /// <summary>Which rates besides OUR and CER enter the elemental balance (used when <see cref="ModelFile"/> is set).</summary>
     public Replay.BalanceConfig Balance { get; set; } = new();
+
+    /// <summary>Batch lifecycle from the plant: fed-batch detection, phase codes, initial conditions of tag-started batches.</summary>
+    public ReactorBatchOptions Batches { get; set; } = new();
+}
+
+/// <summary>
+/// Section <c>reactors:N:batches</c>. The batch-id and phase tags themselves are tags of the map with
+/// roles <c>BatchId</c> and <c>BatchPhaseCode</c>.
+/// </summary>
+internal sealed class ReactorBatchOptions
+{
+    /// <summary>The open batch enters <c>fed-batch</c> when the feed stays above this, L/h, for <see cref="FedBatchHold"/>; NaN (absent) turns detection off.</summary>
+    public double FedBatchFeedAboveLPerH { get; set; } = double.NaN;
+
+    /// <summary>How long the feed must stay above <see cref="FedBatchFeedAboveLPerH"/>.</summary>
+    public TimeSpan FedBatchHold { get; set; } = TimeSpan.FromMinutes(5);
+
+    /// <summary>Phase tag: the controller's numeric code (as text, e.g. <c>"2"</c>) → phase id (batch, fed-batch, induced, harvest).</summary>
+    public Dictionary<string, string> PhaseCodes { get; set; } = new(StringComparer.Ordinal);
+
+    /// <summary>
+    /// A batch started by the batch-id tag takes its volume from the volume or weight tag at that moment
+    /// when true (the estimator's <c>initialVolumeL</c> when no such reading is usable); its inoculum and
+    /// substrate come from the estimator section (<c>initialBiomassGPerL</c>, <c>initialBiomassSigmaGPerL</c>,
+    /// <c>initialSubstrateGPerL</c>).
+    /// </summary>
+    public bool InitialVolumeFromTag { get; set; } = true;
 }
 
 /// <summary>One plant tag of a reactor's tag map.</summary>

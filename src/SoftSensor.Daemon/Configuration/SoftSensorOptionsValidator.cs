@@ -62,6 +62,8 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             {
                 RequireRoles(errors, key, r, roles);
             }
+
+            ValidateBatches(errors, key, r);
         }
 
         ValidateMqtt(errors, options.Mqtt);

@@ -50,6 +50,7 @@ internal static class DaemonHost
         app.MapAlarmEndpoints();
         app.MapBatchEndpoints();
         app.MapBatchForm();
+        app.MapBatchReports();
         Samples.SampleEndpoints.MapSampleEndpoints(app);
         Samples.SampleForm.MapSampleForm(app);
         return app;

@@ -58,11 +58,18 @@ internal sealed class MqttSampleSource : ISampleSource
 
     private ValueTask OnPayloadAsync(TagBinding b, string topic, ReadOnlySequence<byte> payload, ChannelWriter<Sample> samples, CancellationToken cancellationToken)
     {
-        if (!PayloadDecoder.TryDecode(payload, b.Payload, out var r, out string error))
+        bool text = b.Role == SignalRole.BatchId;
+        if (!PayloadDecoder.TryDecode(payload, b.Payload, out var r, out string error, text))
         {
             _metrics.SamplesRejected.Add(1, _reactorTag);
             MqttLog.Malformed(_logger, topic, error);
             return ValueTask.CompletedTask;
+        }
+
+        if (text)
+        {
+            var id = new Sample(b.Tag, double.NaN, r.SourceTime ?? _time.GetUtcNow(), r.Quality, r.StatusCode) { Text = r.Text };
+            return samples.TryWrite(id) ? ValueTask.CompletedTask : samples.WriteAsync(id, cancellationToken);
         }
 
         double value = b.ToRoleUnit(r.Value);

@@ -9,20 +9,26 @@ using SoftSensor.Daemon.Pipeline;
 namespace SoftSensor.Daemon.Mqtt;
 
 /// <summary>A tag reading as decoded from a payload, before scaling: raw value, optional source time, quality, status code.</summary>
-internal readonly record struct RawReading(double Value, DateTimeOffset? SourceTime, SampleQuality Quality, uint StatusCode);
+internal readonly record struct RawReading(double Value, DateTimeOffset? SourceTime, SampleQuality Quality, uint StatusCode)
+{
+    /// <summary>The value as text, for a text-valued tag (decoded with <c>text: true</c>); null otherwise.</summary>
+    public string? Text { get; init; }
+}
 
 /// <summary>
 /// Decodes a tag payload by its configured layout: a plain number as text, or a JSON object read
 /// through dotted paths for the value, the source timestamp (ISO 8601 text or Unix milliseconds),
 /// the quality (good/uncertain/bad or a boolean) and an OPC UA status code. A payload that does
 /// not fit is an everyday failure: the result says why, naming the path and what was found.
+/// A text-valued tag (a batch id) is decoded with <c>text: true</c>: the value may then be a JSON
+/// string or number (or the whole payload, for format number), kept as text of 1 to 64 characters.
 /// </summary>
 internal static class PayloadDecoder
 {
     private const int MaxPayloadBytes = 64 * 1024;
 
     /// <summary>Decodes; on failure <paramref name="error"/> names the reason.</summary>
-    public static bool TryDecode(ReadOnlySequence<byte> payload, PayloadOptions layout, out RawReading reading, out string error)
+    public static bool TryDecode(ReadOnlySequence<byte> payload, PayloadOptions layout, out RawReading reading, out string error, bool text = false)
     {
         reading = default;
         if (payload.Length == 0)
@@ -37,7 +43,28 @@ internal static class PayloadDecoder
             return false;
         }
 
-        return layout.Format == "number" ? TryNumber(payload, out reading, out error) : TryJson(payload, layout, out reading, out error);
+        if (text && layout.Format == "number")
+        {
+            return TryText(Encoding.UTF8.GetString(payload).Trim(), "payload", out reading, out error);
+        }
+
+        return layout.Format == "number" ? TryNumber(payload, out reading, out error) : TryJson(payload, layout, text, out reading, out error);
+    }
+
+    private const int MaxTextLength = 64;
+
+    private static bool TryText(string value, string where, out RawReading reading, out string error)
+    {
+        reading = default;
+        if (value.Length is 0 or > MaxTextLength || value.Any(char.IsControl))
+        {
+            error = $"{where} is '{Clip(value)}' (expected 1 to {MaxTextLength} printable characters)";
+            return false;
+        }
+
+        reading = new RawReading(double.NaN, null, SampleQuality.Good, StatusCodes.Good) { Text = value };
+        error = "";
+        return true;
     }
 
     private static bool TryNumber(ReadOnlySequence<byte> payload, out RawReading reading, out string error)
@@ -55,7 +82,7 @@ internal static class PayloadDecoder
         return true;
     }
 
-    private static bool TryJson(ReadOnlySequence<byte> payload, PayloadOptions layout, out RawReading reading, out string error)
+    private static bool TryJson(ReadOnlySequence<byte> payload, PayloadOptions layout, bool text, out RawReading reading, out string error)
     {
         reading = default;
         JsonDocument doc;
@@ -78,7 +105,30 @@ internal static class PayloadDecoder
                 return false;
             }
 
-            if (!TryValue(ve, out double value))
+            double value = double.NaN;
+            string? asText = null;
+            if (text)
+            {
+                string? raw = ve.ValueKind switch
+                {
+                    JsonValueKind.String => ve.GetString()?.Trim(),
+                    JsonValueKind.Number => ve.GetRawText(),
+                    _ => null,
+                };
+                if (raw is null)
+                {
+                    error = $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a string or a number)";
+                    return false;
+                }
+
+                if (!TryText(raw, $"value at '{layout.ValuePath}'", out _, out error))
+                {
+                    return false;
+                }
+
+                asText = raw;
+            }
+            else if (!TryValue(ve, out value))
             {
                 error = $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a finite number)";
                 return false;
@@ -127,7 +177,7 @@ internal static class PayloadDecoder
                 code = StatusCodes.Of(quality);
             }
 
-            reading = new RawReading(value, time, quality, code);
+            reading = new RawReading(value, time, quality, code) { Text = asText };
             error = "";
             return true;
         }

@@ -6,7 +6,11 @@ namespace SoftSensor.Daemon.Pipeline;
 /// <param name="Time">Cycle time (UTC).</param>
 /// <param name="State">The state as the cycle wrote it (JSON).</param>
 /// <param name="Batch">The operator batch the state belongs to: its id, empty when no batch was open, null in a checkpoint written before batches were recorded.</param>
-internal sealed record Checkpoint(string Reactor, long Cycle, DateTimeOffset Time, string State, string? Batch = null);
+internal sealed record Checkpoint(string Reactor, long Cycle, DateTimeOffset Time, string State, string? Batch = null)
+{
+    /// <summary>The input samples the pipeline still held (JSON, <see cref="HeldSamples"/>), so that dead-time alignment continues after a restart; null when none were saved.</summary>
+    public string? Inputs { get; init; }
+}
 
 /// <summary>Durable storage of checkpoints (the embedded store). Thread-safe.</summary>
 internal interface ICheckpointStore

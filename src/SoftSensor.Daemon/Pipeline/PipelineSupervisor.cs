@@ -31,7 +31,7 @@ internal sealed class PipelineSupervisor : BackgroundService
         {
             var bindings = TagBinding.FromOptions(r);
             var sources = factories.Select(f => f.Create(r, bindings)).OfType<Sources.ISampleSource>().ToList();
-            return new ReactorPipeline(r, bindings, cycles.Create(r, bindings), sources, services);
+            return new ReactorPipeline(r, bindings, cycles.Create(r, TagBinding.Process(bindings)), sources, services);
         }).ToList();
     }
 

@@ -24,6 +24,7 @@ internal sealed partial class ReactorPipeline
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
+    private readonly Batches.BatchSignals _batchSignals;
     private readonly IReactorCycle _cycle;
     private readonly IReadOnlyList<ISampleSource> _sources;
     private readonly PipelineServices _services;
@@ -41,8 +42,10 @@ internal sealed partial class ReactorPipeline
     public ReactorPipeline(ReactorOptions options, IReadOnlyList<TagBinding> bindings, IReactorCycle cycle, IReadOnlyList<ISampleSource> sources, PipelineServices services)
     {
         _options = options;
-        _signals = new SignalStore(bindings);
-        _health = new InputHealth[bindings.Count];
+        var process = TagBinding.Process(bindings);
+        _signals = new SignalStore(process);
+        _batchSignals = new Batches.BatchSignals(options, bindings);
+        _health = new InputHealth[process.Count];
         _cycle = cycle;
         _sources = sources;
         _services = services;
@@ -93,9 +96,16 @@ internal sealed partial class ReactorPipeline
     public bool Accept(in Sample sample)
     {
         bool ok;
-        lock (_gate)
+        if (_batchSignals.Handles(sample.Tag))
         {
-            ok = _signals.Accept(sample);
+            ok = _batchSignals.Accept(sample);
+        }
+        else
+        {
+            lock (_gate)
+            {
+                ok = _signals.Accept(sample);
+            }
         }
 
         if (ok)
@@ -122,16 +132,6 @@ internal sealed partial class ReactorPipeline
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
-        var open = _services.Batches?.Current(Reactor);
-        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
-        string batchId = open?.BatchId ?? _options.BatchId;
-        if (_services.Samples is { } samples)
-        {
-            // Operator inputs go to the estimator here, on the cycle task (after a batch start reset it), so they never race a cycle.
-            Samples.SampleApplier.ApplyPending(samples, Reactor, batchId, _cycle,
-                state => state is null ? null : new Checkpoint(Reactor, Interlocked.Read(ref _cycles), now, state, StateBatch), _services.Logger);
-        }
-
         long arrival;
         lock (_gate)
         {
@@ -139,7 +139,22 @@ internal sealed partial class ReactorPipeline
             arrival = Volatile.Read(ref _newestArrival);
         }
 
-        var frame = Compute(now, batchId);
+        if (_services.Batches is { } book)
+        {
+            _batchSignals.Apply(now, _inputs, book, _services.Logger);
+        }
+
+        var open = _services.Batches?.Current(Reactor);
+        bool began = open is not null && open.BatchId != _stateBatch && BeginBatch(open);
+        string batchId = open?.BatchId ?? _options.BatchId;
+        if (_services.Samples is { } samples)
+        {
+            // Operator inputs go to the estimator here, on the cycle task (after a batch start reset it), so they never race a cycle.
+            Samples.SampleApplier.ApplyPending(samples, Reactor, batchId, _cycle,
+                state => state is null ? null : NewCheckpoint(state, now), _services.Logger);
+        }
+
+        var frame = Compute(now, batchId) with { Phase = open?.Phase ?? string.Empty };
         long n = Interlocked.Increment(ref _cycles);
         _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);
@@ -193,60 +208,5 @@ internal sealed partial class ReactorPipeline
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
             return new EstimateFrame(Reactor, batchId, now, SampleQuality.Bad, []);
         }
-    }
-
-    /// <summary>Restores the newest checkpoint when it belongs to the open batch (RunAsync does it first; internal for tests).</summary>
-    internal async Task RestoreAsync(CancellationToken cancellationToken)
-    {
-        if (_services.Checkpoints is not { } store)
-        {
-            return;
-        }
-
-        var checkpoint = await store.LatestCheckpointAsync(Reactor, cancellationToken);
-        if (checkpoint is null)
-        {
-            return;
-        }
-
-        var open = _services.Batches?.Current(Reactor);
-        if (!BelongsToOpenBatch(checkpoint, open))
-        {
-            PipelineLog.CheckpointOfOtherBatch(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Batch ?? "(unrecorded)", open?.BatchId ?? "(none)");
-            return;
-        }
-
-        try
-        {
-            _cycle.RestoreState(checkpoint.State);
-            Volatile.Write(ref _stateBatch, open?.BatchId ?? string.Empty);
-            Interlocked.Exchange(ref _cycles, checkpoint.Cycle);
-            PipelineLog.Restored(_services.Logger, Reactor, checkpoint.Cycle, checkpoint.Time);
-        }
-        catch (Exception e) when (e is FormatException or System.Text.Json.JsonException or ArgumentException or InvalidOperationException)
-        {
-            PipelineLog.RestoreFailed(_services.Logger, Reactor, e.Message);
-        }
-    }
-
-    /// <summary>
-    /// A checkpoint resumes the open batch only when it was written in it (or, with no batch open, outside
-    /// any batch); one written before batches were recorded counts when the open batch had already started.
-    /// </summary>
-    private static bool BelongsToOpenBatch(Checkpoint checkpoint, Batches.BatchRun? open) => checkpoint.Batch switch
-    {
-        null => open is null || open.StartedAt <= checkpoint.Time,
-        var batch => batch == (open?.BatchId ?? string.Empty),
-    };
-
-    private async ValueTask CheckpointAsync(CancellationToken cancellationToken)
-    {
-        if (_services.Checkpoints is not { } store || _cycle.SaveState() is not { } state)
-        {
-            return;
-        }
-
-        var checkpoint = new Checkpoint(Reactor, Interlocked.Read(ref _cycles), _services.Time.GetUtcNow(), state, StateBatch);
-        await store.WriteCheckpointAsync(checkpoint, cancellationToken);
     }
 }

@@ -42,6 +42,22 @@ internal sealed class SignalStore
     }
 
     /// <summary>
+    /// Every sample still held (what later cycles can need: the last dead time of each tag, at least its
+    /// newest sample), for the checkpoint: a restarted daemon then aligns the analyser readings as the
+    /// stopped one would have.
+    /// </summary>
+    public List<Sample> Held()
+    {
+        var list = new List<Sample>();
+        foreach (var h in _histories)
+        {
+            h.CopyTo(list);
+        }
+
+        return list;
+    }
+
+    /// <summary>
     /// Fills <paramref name="inputs"/> for the cycle at <paramref name="time"/> (each tag at time −
     /// dead time) and <paramref name="health"/> (one entry per binding), then drops history no
     /// later cycle can need.

@@ -33,6 +33,10 @@ internal sealed record TagBinding(
                 kv.Value.OpcUaNode))
             .ToList();
 
+    /// <summary>The tags that enter the cycle (every role but the batch roles, <see cref="SignalRoles.IsBatchRole"/>).</summary>
+    public static IReadOnlyList<TagBinding> Process(IReadOnlyList<TagBinding> bindings) =>
+        bindings.Any(b => SignalRoles.IsBatchRole(b.Role)) ? [.. bindings.Where(b => !SignalRoles.IsBatchRole(b.Role))] : bindings;
+
     /// <summary>The raw plant value converted to the role's unit.</summary>
     public double ToRoleUnit(double raw) => raw * Scale + Offset;
 }

@@ -70,6 +70,15 @@ internal sealed class TagHistory
         }
     }
 
+    /// <summary>Appends every sample held, oldest first.</summary>
+    public void CopyTo(List<Sample> samples)
+    {
+        for (int i = 0; i < _count; i++)
+        {
+            samples.Add(At(i));
+        }
+    }
+
     private Sample At(int i) => _ring[(_start + i) % _ring.Length];
 
     private void Put(int i, Sample s) => _ring[(_start + i) % _ring.Length] = s;

@@ -9,7 +9,8 @@ namespace SoftSensor.Daemon.Report;
 /// <summary>Writes DIR/report.html: summary, figures (PNG beside it), inconsistency intervals with the diagnosis, skipped rows, cautions.</summary>
 internal static class ReportWriter
 {
-    public static void Write(string dir, string title, ReplayResult result, IReadOnlyList<(string File, string Caption)> figures)
+    /// <summary>Writes the report; <paramref name="extraHtml"/> (already encoded) goes before the methods, e.g. a live batch's phases and alarms.</summary>
+    public static void Write(string dir, string title, ReplayResult result, IReadOnlyList<(string File, string Caption)> figures, string? extraHtml = null)
     {
         var s = result.Series;
         var ci = CultureInfo.InvariantCulture;
@@ -86,6 +87,7 @@ internal static class ReportWriter
             h.Append("</table>\n");
         }
 
+        h.Append(extraHtml ?? string.Empty);
         h.Append("<h2>Methods</h2>\n<p>OUR and CER from the inert-gas balance (CER is the CO2 transfer rate; no dissolved-CO2 correction); ")
          .Append("reconciliation and the χ² consistency test of the elemental balances (Wang &amp; Stephanopoulos 1983; van der Heijden et al. 1994); ")
          .Append("biomass by integrating the reconciled growth rate, corrected by offline samples with a Kalman update; a second observer: ")

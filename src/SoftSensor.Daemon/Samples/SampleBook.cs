@@ -75,6 +75,7 @@ internal sealed partial class SampleBook
         bool waits = e.IsBiomass || e.WithdrawnL > 0;
         string outcome = waits ? SampleOutcomes.Pending : SampleOutcomes.Recorded;
         string? detail = waits ? null : "stored and shown; the estimator keeps no substrate or product state with an uncertainty to correct";
+        SampleRecord record;
         lock (_gate)
         {
             using var c = Open();
@@ -98,7 +99,7 @@ internal sealed partial class SampleBook
             cmd.Parameters.AddWithValue("$res", waits ? DBNull.Value : now.ToUnixTimeMilliseconds());
             cmd.Parameters.AddWithValue("$p", e.Payload);
             long id = (long)cmd.ExecuteScalar()!;
-            var record = new SampleRecord(id, reactor, batch, Ms(now), Ms(e.SampledAt), SampleEntry.Name(e.Kind), e.ValueGPerL, e.SigmaGPerL, e.WithdrawnL,
+            record = new SampleRecord(id, reactor, batch, Ms(now), Ms(e.SampledAt), SampleEntry.Name(e.Kind), e.ValueGPerL, e.SigmaGPerL, e.WithdrawnL,
                 e.Analyte, e.Operator, outcome, detail, waits ? null : Ms(now), null, null, null, null, null, e.Payload);
             if (waits)
             {
@@ -108,10 +109,10 @@ internal sealed partial class SampleBook
             {
                 _resolved?.Add(1, new("reactor", reactor), new("outcome", outcome));
             }
-
-            Changed?.Invoke(record);
-            return record;
         }
+
+        Changed?.Invoke(record);
+        return record;
     }
 
     /// <summary>The pending inputs of a reactor, oldest entry first (a copy).</summary>

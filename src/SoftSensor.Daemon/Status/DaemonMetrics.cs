@@ -25,6 +25,9 @@ internal sealed class DaemonMetrics : IDisposable
         TagToEstimateSeconds = _meter.CreateHistogram<double>("softsensor_tag_to_estimate_seconds", "s", "Arrival of the newest input to the frame leaving the dispatcher");
     }
 
+    /// <summary>The meter factory the instruments came from (tells this daemon's meter from another host's of the same name in one process).</summary>
+    public object? Scope => _meter.Scope;
+
     public Histogram<double> CycleSeconds { get; }
 
     public Counter<long> SamplesIn { get; }

@@ -22,7 +22,8 @@ internal sealed class PrometheusExporter : IDisposable
         ArgumentNullException.ThrowIfNull(metrics);
         _listener.InstrumentPublished = (instrument, listener) =>
         {
-            if (instrument.Meter.Name == DaemonMetrics.MeterName)
+            // Only this daemon's meters: a MeterListener sees every meter of the process, and tests host several daemons in one.
+            if (instrument.Meter.Name == DaemonMetrics.MeterName && ReferenceEquals(instrument.Meter.Scope, metrics.Scope))
             {
                 _meta[instrument.Name] = (instrument is Histogram<double> ? "histogram" : "counter", instrument.Description ?? instrument.Name);
                 listener.EnableMeasurementEvents(instrument);

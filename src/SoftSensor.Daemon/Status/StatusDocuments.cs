@@ -9,7 +9,14 @@ internal static class StatusDocuments
 {
     public sealed record DaemonDoc(string Broker, bool MqttOnline, int MqttConnections, DateTimeOffset Now, IReadOnlyList<ReactorDoc> Reactors);
 
-    public sealed record ReactorDoc(string Id, long Cycle, DateTimeOffset CycleTime, string Quality, DateTimeOffset? SourceTime, IReadOnlyList<EstimateDoc> Estimates, IReadOnlyList<InputDoc> Inputs);
+    public sealed record ReactorDoc(string Id, long Cycle, DateTimeOffset CycleTime, string Quality, DateTimeOffset? SourceTime, IReadOnlyList<EstimateDoc> Estimates, IReadOnlyList<InputDoc> Inputs)
+    {
+        /// <summary>The batch id of the newest frame.</summary>
+        public string Batch { get; init; } = "";
+
+        /// <summary>The batch's phase at the newest frame (empty when no batch is open).</summary>
+        public string Phase { get; init; } = "";
+    }
 
     public sealed record EstimateDoc(string Name, double? Value, string Unit, double? Sigma, string Quality, uint StatusCode);
 
@@ -43,5 +50,9 @@ internal static class StatusDocuments
             Finite(i.AgeSeconds),
             i.State.ToString().ToLowerInvariant(),
             EstimatePayload.Name(i.Quality),
-            i.StatusCode)).ToList());
+            i.StatusCode)).ToList())
+    {
+        Batch = s.Frame?.BatchId ?? "",
+        Phase = s.Frame?.Phase ?? "",
+    };
 }

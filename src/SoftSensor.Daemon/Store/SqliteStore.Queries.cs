@@ -54,16 +54,16 @@ internal sealed partial class SqliteStore
     {
         cancellationToken.ThrowIfCancellationRequested();
         using var conn = OpenReader();
-        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality)>();
+        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality, string Phase)>();
         using (var c = conn.CreateCommand())
         {
-            c.CommandText = "SELECT id, reactor, batch, time_ms, quality FROM frames WHERE id > $a ORDER BY id LIMIT $l";
+            c.CommandText = "SELECT id, reactor, batch, time_ms, quality, phase FROM frames WHERE id > $a ORDER BY id LIMIT $l";
             c.Parameters.AddWithValue("$a", afterId);
             c.Parameters.AddWithValue("$l", limit);
             using var r = c.ExecuteReader();
             while (r.Read())
             {
-                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4)));
+                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4), r.GetString(5)));
             }
         }
 
@@ -89,7 +89,7 @@ internal sealed partial class SqliteStore
 
         IReadOnlyList<StoredFrame> result = frames.Select(f => new StoredFrame(
             f.Id,
-            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : [])))
+            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : []) { Phase = f.Phase }))
             .ToList();
         return ValueTask.FromResult(result);
     }
@@ -142,13 +142,62 @@ internal sealed partial class SqliteStore
         cancellationToken.ThrowIfCancellationRequested();
         using var conn = OpenReader();
         using var c = conn.CreateCommand();
-        c.CommandText = "SELECT cycle, time_ms, state, batch FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1";
+        c.CommandText = "SELECT cycle, time_ms, state, batch, inputs FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1";
         c.Parameters.AddWithValue("$r", reactor);
         using var r = c.ExecuteReader();
         Checkpoint? cp = r.Read()
             ? new Checkpoint(reactor, r.GetInt64(0), DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(1)), r.GetString(2), r.IsDBNull(3) ? null : r.GetString(3))
+            {
+                Inputs = r.IsDBNull(4) ? null : r.GetString(4),
+            }
             : null;
         return ValueTask.FromResult(cp);
+    }
+
+    /// <summary>Every frame of one batch of a reactor with its values by name, oldest first (the batch report's data).</summary>
+    public ValueTask<IReadOnlyList<StoredFrameValues>> BatchFramesAsync(string reactor, string batch, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = """
+            SELECT f.id, f.time_ms, f.quality, e.name, e.value, e.sigma, e.unit, e.quality, e.status_code
+            FROM frames f JOIN estimates e ON e.frame_id = f.id
+            WHERE f.reactor = $r AND f.batch = $b ORDER BY f.id
+            """;
+        c.Parameters.AddWithValue("$r", reactor);
+        c.Parameters.AddWithValue("$b", batch);
+        var list = new List<StoredFrameValues>();
+        Dictionary<string, EstimateValue>? values = null;
+        using var r = c.ExecuteReader();
+        long current = -1;
+        while (r.Read())
+        {
+            long id = r.GetInt64(0);
+            if (id != current || values is null)
+            {
+                current = id;
+                values = new Dictionary<string, EstimateValue>(StringComparer.Ordinal);
+                list.Add(new StoredFrameValues(DateTimeOffset.FromUnixTimeMilliseconds(r.GetInt64(1)), (SampleQuality)r.GetInt32(2), values));
+            }
+
+            string name = r.GetString(3);
+            values[name] = new EstimateValue(name, r.IsDBNull(4) ? double.NaN : r.GetDouble(4), r.GetString(6),
+                r.IsDBNull(5) ? double.NaN : r.GetDouble(5), (SampleQuality)r.GetInt32(7), (uint)r.GetInt64(8));
+        }
+
+        return ValueTask.FromResult<IReadOnlyList<StoredFrameValues>>(list);
+    }
+
+    /// <summary>The batch id of the newest stored frame of a reactor, or null.</summary>
+    public ValueTask<string?> LatestBatchAsync(string reactor, CancellationToken cancellationToken)
+    {
+        cancellationToken.ThrowIfCancellationRequested();
+        using var conn = OpenReader();
+        using var c = conn.CreateCommand();
+        c.CommandText = "SELECT batch FROM frames WHERE reactor = $r ORDER BY id DESC LIMIT 1";
+        c.Parameters.AddWithValue("$r", reactor);
+        return ValueTask.FromResult(c.ExecuteScalar() as string);
     }
 
     private static StoredEstimate ReadEstimate(SqliteDataReader r) => new(

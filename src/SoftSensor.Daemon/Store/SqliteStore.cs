@@ -108,11 +108,12 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             using var tx = _writer.BeginTransaction();
             using var f = _writer.CreateCommand();
             f.Transaction = tx;
-            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality) VALUES ($r, $b, $t, $q) RETURNING id";
+            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase) VALUES ($r, $b, $t, $q, $p) RETURNING id";
             var fr = f.Parameters.Add("$r", SqliteType.Text);
             var fb = f.Parameters.Add("$b", SqliteType.Text);
             var ft = f.Parameters.Add("$t", SqliteType.Integer);
             var fq = f.Parameters.Add("$q", SqliteType.Integer);
+            var fp = f.Parameters.Add("$p", SqliteType.Text);
             f.Prepare();
             using var e = _writer.CreateCommand();
             e.Transaction = tx;
@@ -135,6 +136,7 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
                 fb.Value = frame.BatchId;
                 ft.Value = ms;
                 fq.Value = (int)frame.Quality;
+                fp.Value = frame.Phase;
                 long id = (long)f.ExecuteScalar()!;
                 ids[k] = id;
                 pf.Value = id;
@@ -205,7 +207,8 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         try
         {
             using var c = _writer.CreateCommand();
-            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch) VALUES ($r, $c, $t, $s, $b)";
+            c.CommandText = "INSERT INTO checkpoints (reactor, cycle, time_ms, state, batch, inputs) VALUES ($r, $c, $t, $s, $b, $i)";
+            c.Parameters.AddWithValue("$i", (object?)checkpoint.Inputs ?? DBNull.Value);
             c.Parameters.AddWithValue("$b", (object?)checkpoint.Batch ?? DBNull.Value);
             c.Parameters.AddWithValue("$r", checkpoint.Reactor);
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);

@@ -37,3 +37,6 @@ internal sealed record StoredAlarm(
     bool Active,
     double Value,
     string Message);
+
+/// <summary>One stored frame with its values by estimate name (the batch report reads these).</summary>
+internal sealed record StoredFrameValues(DateTimeOffset Time, SampleQuality Quality, IReadOnlyDictionary<string, EstimateValue> Values);

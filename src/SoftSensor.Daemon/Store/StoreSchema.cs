@@ -4,7 +4,7 @@ namespace SoftSensor.Daemon.Store;
 /// The embedded store's tables (SQLite, WAL). Times are Unix milliseconds UTC; a value that could not
 /// be computed is NULL; quality is 0 good, 1 uncertain, 2 bad (<see cref="Core.Signals.SampleQuality"/>).
 /// <list type="bullet">
-/// <item><c>frames</c>: one row per cycle and reactor (its id orders the outbox).</item>
+/// <item><c>frames</c>: one row per cycle and reactor (its id orders the outbox), with its batch and the batch's phase (version 2).</item>
 /// <item><c>estimates</c>: one row per value of a frame, indexed by reactor, name and time.</item>
 /// <item><c>alarms</c>: every alarm state change (the active ones are the newest row per alarm with active = 1).</item>
 /// <item><c>checkpoints</c>: estimator state per reactor, newest last, with the batch it belongs to (version 2).</item>
@@ -22,7 +22,8 @@ internal static class StoreSchema
             reactor   TEXT    NOT NULL,
             batch     TEXT    NOT NULL,
             time_ms   INTEGER NOT NULL,
-            quality   INTEGER NOT NULL
+            quality   INTEGER NOT NULL,
+            phase     TEXT    NOT NULL DEFAULT ''
         );
         CREATE INDEX IF NOT EXISTS frames_by_reactor_time ON frames (reactor, time_ms);
         CREATE TABLE IF NOT EXISTS estimates (
@@ -57,7 +58,8 @@ internal static class StoreSchema
             cycle     INTEGER NOT NULL,
             time_ms   INTEGER NOT NULL,
             state     TEXT    NOT NULL,
-            batch     TEXT
+            batch     TEXT,
+            inputs    TEXT
         );
         CREATE INDEX IF NOT EXISTS checkpoints_by_reactor ON checkpoints (reactor, id);
         CREATE TABLE IF NOT EXISTS outbox_cursors (
@@ -71,5 +73,7 @@ internal static class StoreSchema
     public static readonly (string Table, string Column, string Sql)[] AddedColumns =
     [
         ("checkpoints", "batch", "ALTER TABLE checkpoints ADD COLUMN batch TEXT"),
+        ("frames", "phase", "ALTER TABLE frames ADD COLUMN phase TEXT NOT NULL DEFAULT ''"),
+        ("checkpoints", "inputs", "ALTER TABLE checkpoints ADD COLUMN inputs TEXT"),
     ];
 }

@@ -79,7 +79,7 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
         client.Clear();
         await client.PublishAsync(topic, "{\"command\":\"pause\"}");
         var (_, refused) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "refusal");
-        Assert.Contains("expected start or end", refused, StringComparison.Ordinal);
+        Assert.Contains("expected start, phase or end", refused, StringComparison.Ordinal);
 
         client.Clear();
         await client.PublishAsync(topic, "{\"command\":\"end\"}");

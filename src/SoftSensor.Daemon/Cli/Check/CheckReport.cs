@@ -4,7 +4,14 @@ namespace SoftSensor.Daemon.Cli.Check;
 internal sealed record CheckReport(string File, bool Usable, IReadOnlyList<string> Problems, IReadOnlyList<ReactorCheck> Reactors, IReadOnlyList<AlarmRuleLine> AlarmRules);
 
 /// <summary>One reactor: its tag map, its model's structure (null without a model file) and the alarm rules that watch it.</summary>
-internal sealed record ReactorCheck(string Id, string BatchId, TimeSpan CyclePeriod, IReadOnlyList<TagLine> Tags, ModelCheck? Model);
+internal sealed record ReactorCheck(string Id, string BatchId, TimeSpan CyclePeriod, IReadOnlyList<TagLine> Tags, ModelCheck? Model)
+{
+    /// <summary>The batch lifecycle from the plant (section batches and the batch tags).</summary>
+    public BatchLifecycleLine? Batches { get; init; }
+}
+
+/// <summary>How a reactor follows the plant's batches: batch-id and phase tags, phase codes, fed-batch detection.</summary>
+internal sealed record BatchLifecycleLine(string? BatchIdTag, string? PhaseTag, IReadOnlyDictionary<string, string> PhaseCodes, double? FedBatchFeedAboveLPerH, TimeSpan FedBatchHold, bool InitialVolumeFromTag);
 
 /// <summary>One tag of the map: declared unit, the role's unit and the scaling between them.</summary>
 internal sealed record TagLine(string Tag, string Role, string Unit, string RoleUnit, double Scale, double Offset, TimeSpan DeadTime, string Topic, bool UnitConverts);

@@ -5,6 +5,26 @@ namespace SoftSensor.Daemon.Cli.Check;
 /// <summary>The text form of a <see cref="CheckReport"/>: one block per reactor, then the problems.</summary>
 internal static class CheckText
 {
+    private static void WriteBatches(TextWriter o, BatchLifecycleLine? b)
+    {
+        if (b is null)
+        {
+            return;
+        }
+
+        string fed = b.FedBatchFeedAboveLPerH is { } f ? string.Create(CultureInfo.InvariantCulture, $"feed above {f:G4} L/h for {b.FedBatchHold}") : "off (operator only)";
+        o.WriteLine($"  batches: batch-id tag {b.BatchIdTag ?? "(none: operator commands)"}, phase tag {b.PhaseTag ?? "(none)"}, fed-batch detection {fed}");
+        if (b.PhaseCodes.Count > 0)
+        {
+            o.WriteLine($"  phase codes: {string.Join(", ", b.PhaseCodes.OrderBy(c => c.Key, StringComparer.Ordinal).Select(c => $"{c.Key} = {c.Value}"))}");
+        }
+
+        if (b.BatchIdTag is not null)
+        {
+            o.WriteLine($"  a tag-started batch takes its volume {(b.InitialVolumeFromTag ? "from the volume or weight tag" : "from estimator:initialVolumeL")}, inoculum and substrate from the estimator section");
+        }
+    }
+
     public static void Write(TextWriter o, CheckReport report)
     {
         o.WriteLine($"configuration  {report.File}");
@@ -20,6 +40,7 @@ internal static class CheckText
                 o.WriteLine($"  {t.Tag,-22} {t.Role,-26} {unit,-10} {t.RoleUnit,-10} {N(t.Scale),8} {N(t.Offset),8}  {t.DeadTime,-9}  {t.Topic}{mark}");
             }
 
+            WriteBatches(o, r.Batches);
             WriteModel(o, r.Model);
             WriteAlarms(o, report.AlarmRules);
         }

@@ -50,7 +50,11 @@ internal static class ConfigurationCheck
                 model = ModelStructure.Run(key + ":modelFile", Resolve(r.ModelFile, folder), r, problems);
             }
 
-            reactors.Add(new ReactorCheck(r.Id, r.BatchId, r.CyclePeriod, tags, model));
+            string? TagOf(SignalRole role) => r.Tags.FirstOrDefault(t => string.Equals(t.Value.Role, role.ToString(), StringComparison.OrdinalIgnoreCase)).Key;
+            var b = r.Batches;
+            var lifecycle = new BatchLifecycleLine(TagOf(SignalRole.BatchId), TagOf(SignalRole.BatchPhaseCode), b.PhaseCodes,
+                double.IsNaN(b.FedBatchFeedAboveLPerH) ? null : b.FedBatchFeedAboveLPerH, b.FedBatchHold, b.InitialVolumeFromTag);
+            reactors.Add(new ReactorCheck(r.Id, r.BatchId, r.CyclePeriod, tags, model) { Batches = lifecycle });
         }
 
         return new CheckReport(file, problems.Count == 0, problems, reactors, alarms);

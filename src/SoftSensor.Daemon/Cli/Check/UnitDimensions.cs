@@ -33,6 +33,8 @@ internal static class UnitDimensions
         Add(d, "liquid flow", "L/h", "mL/h", "mL/min", "L/min", "kg/h", "g/h", "g/min");
         Add(d, "pH", "pH");
         Add(d, "state", "1", "bool", "0/1");
+        Add(d, "identifier", "id", "text");
+        Add(d, "phase code", "code");
         return d;
     }
 
