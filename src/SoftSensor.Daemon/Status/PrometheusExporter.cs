@@ -6,9 +6,11 @@ using System.Text;
 namespace SoftSensor.Daemon.Status;
 
 /// <summary>
-/// Listens to the daemon's meter and renders the Prometheus text exposition format (version 0.0.4):
-/// counters as <c>_total</c> sums, histograms as cumulative <c>_bucket</c>, <c>_sum</c>, <c>_count</c>,
-/// one series per tag set. Thread-safe.
+/// Listens to the daemon's meters (<c>SoftSensor.Daemon</c> and the outbox's <c>SoftSensor.Timeseries</c>)
+/// and renders the Prometheus text exposition format (version 0.0.4): counters as <c>_total</c> sums,
+/// observable gauges as their value at the scrape, histograms as cumulative <c>_bucket</c>, <c>_sum</c>,
+/// <c>_count</c>, one series per tag set. Instrument names become Prometheus names with dots turned into
+/// underscores (the exposition format allows <c>[a-zA-Z_:][a-zA-Z0-9_:]*</c>). Thread-safe.
 /// </summary>
 internal sealed class PrometheusExporter : IDisposable
 {
@@ -23,14 +25,16 @@ internal sealed class PrometheusExporter : IDisposable
         _listener.InstrumentPublished = (instrument, listener) =>
         {
             // Only this daemon's meters: a MeterListener sees every meter of the process, and tests host several daemons in one.
-            if (instrument.Meter.Name == DaemonMetrics.MeterName && ReferenceEquals(instrument.Meter.Scope, metrics.Scope))
+            bool ours = instrument.Meter.Name is DaemonMetrics.MeterName or Timeseries.TimeseriesMetrics.MeterName;
+            if (ours && ReferenceEquals(instrument.Meter.Scope, metrics.Scope))
             {
-                _meta[instrument.Name] = (instrument is Histogram<double> ? "histogram" : "counter", instrument.Description ?? instrument.Name);
+                _meta[NameOf(instrument)] = (KindOf(instrument), instrument.Description ?? instrument.Name);
                 listener.EnableMeasurementEvents(instrument);
             }
         };
-        _listener.SetMeasurementEventCallback<long>((i, v, tags, _) => Get(i, tags).Add(v));
-        _listener.SetMeasurementEventCallback<double>((i, v, tags, _) => Get(i, tags).Observe(v));
+        _listener.SetMeasurementEventCallback<int>((i, v, tags, _) => Record(i, v, tags));
+        _listener.SetMeasurementEventCallback<long>((i, v, tags, _) => Record(i, v, tags));
+        _listener.SetMeasurementEventCallback<double>((i, v, tags, _) => Record(i, v, tags));
         _listener.Start();
     }
 
@@ -40,6 +44,7 @@ internal sealed class PrometheusExporter : IDisposable
     /// <summary>Renders every series.</summary>
     public string Render()
     {
+        _listener.RecordObservableInstruments();
         var sb = new StringBuilder();
         foreach (var group in _series.OrderBy(s => s.Key.Name, StringComparer.Ordinal).ThenBy(s => s.Key.Labels, StringComparer.Ordinal).GroupBy(s => s.Key.Name))
         {
@@ -57,6 +62,36 @@ internal sealed class PrometheusExporter : IDisposable
 
     public void Dispose() => _listener.Dispose();
 
+    private static string KindOf(Instrument instrument) => instrument switch
+    {
+        Histogram<double> => "histogram",
+        ObservableGauge<int> or ObservableGauge<long> or ObservableGauge<double> => "gauge",
+        _ => "counter",
+    };
+
+    private static string NameOf(Instrument instrument)
+    {
+        string name = instrument.Name.Replace('.', '_');
+        return KindOf(instrument) == "counter" && !name.EndsWith("_total", StringComparison.Ordinal) ? name + "_total" : name;
+    }
+
+    private void Record(Instrument instrument, double value, ReadOnlySpan<KeyValuePair<string, object?>> tags)
+    {
+        var series = Get(instrument, tags);
+        switch (KindOf(instrument))
+        {
+            case "histogram":
+                series.Observe(value);
+                break;
+            case "gauge":
+                series.Set(value);
+                break;
+            default:
+                series.Add(value);
+                break;
+        }
+    }
+
     private Series Get(Instrument instrument, ReadOnlySpan<KeyValuePair<string, object?>> tags)
     {
         string labels = "";
@@ -72,7 +107,7 @@ internal sealed class PrometheusExporter : IDisposable
             labels = string.Join(",", parts);
         }
 
-        return _series.GetOrAdd((instrument.Name, labels), _ => new Series());
+        return _series.GetOrAdd((NameOf(instrument), labels), _ => new Series());
     }
 
     private static string Escape(string v) => v.Replace("\\", "\\\\", StringComparison.Ordinal).Replace("\"", "\\\"", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
@@ -86,7 +121,16 @@ internal sealed class PrometheusExporter : IDisposable
         private long _count;
         private double _sum;
 
-        public void Add(long v)
+        public void Set(double v)
+        {
+            lock (_gate)
+            {
+                _sum = v;
+                _count = 1;
+            }
+        }
+
+        public void Add(double v)
         {
             lock (_gate)
             {

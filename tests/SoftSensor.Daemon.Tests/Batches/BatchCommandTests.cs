@@ -82,6 +82,15 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
         Assert.Contains("expected start, phase or end", refused, StringComparison.Ordinal);
 
         client.Clear();
+        await client.PublishAsync(topic, "{\"command\":\"phase\",\"phase\":\"harvest\"}");
+        var (_, phased) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "phase result");
+        Assert.Contains("\"phase\":\"harvest\"", phased, StringComparison.Ordinal);
+
+        // Frames carry the phase, and the retained batch topic shows it.
+        await client.SubscribeAsync("softsensor/pilot/batchmqtt/r1/batch");
+        await client.WaitForAsync((t, p) => t.EndsWith("/r1/batch", StringComparison.Ordinal) && p.Contains("\"phase\":\"harvest\"", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "retained batch topic in harvest");
+
+        client.Clear();
         await client.PublishAsync(topic, "{\"command\":\"end\"}");
         var (_, ended) = await client.WaitForAsync((t, p) => t.EndsWith("/result", StringComparison.Ordinal), TimeSpan.FromSeconds(5), "end result");
         Assert.Contains("\"applied\":true", ended, StringComparison.Ordinal);
@@ -106,6 +115,9 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
         });
         string page = await (await http.PostAsync(new Uri("/batches/r1/start", UriKind.Relative), good)).Content.ReadAsStringAsync();
         Assert.Contains("Open batch <b>f-1</b>", page, StringComparison.Ordinal);
+        using var phase = new FormUrlEncodedContent(new Dictionary<string, string> { ["phase"] = "fed-batch" });
+        string moved = await (await http.PostAsync(new Uri("/batches/r1/phase", UriKind.Relative), phase)).Content.ReadAsStringAsync();
+        Assert.Contains("id=\"phase-r1\">fed-batch</b>", moved, StringComparison.Ordinal);
         Assert.Equal("f-1", daemon.Get<Daemon.Batches.BatchBook>().Current("r1")!.BatchId);
     }
 
