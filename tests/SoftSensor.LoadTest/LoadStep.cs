@@ -38,19 +38,35 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
     private async Task<StepResult> RunInAsync(string dir, int reactors, TextWriter log)
     {
         ChildProcess? broker = null;
-        int port = options.BrokerPort;
-        if (port == 0)
+        try
         {
-            port = ChildProcess.FreePort();
-            File.WriteAllText(Path.Combine(dir, "mosquitto.conf"), $"listener {port} 127.0.0.1\nallow_anonymous true\npersistence false\nlog_dest none\nmax_queued_messages 100000\n");
-            broker = ChildProcess.Start("/usr/sbin/mosquitto", ["-c", Path.Combine(dir, "mosquitto.conf")], Path.Combine(dir, "mosquitto.log"));
-            await ChildProcess.WaitListeningAsync(port, TimeSpan.FromSeconds(10));
+            int port = options.BrokerPort;
+            if (port == 0)
+            {
+                port = ChildProcess.FreePort();
+                File.WriteAllText(Path.Combine(dir, "mosquitto.conf"), $"listener {port} 127.0.0.1\nallow_anonymous true\npersistence false\nlog_dest none\nmax_queued_messages 100000\n");
+                broker = ChildProcess.Start("/usr/sbin/mosquitto", ["-c", Path.Combine(dir, "mosquitto.conf")], Path.Combine(dir, "mosquitto.log"));
+                await ChildProcess.WaitListeningAsync(port, TimeSpan.FromSeconds(10));
+            }
+
+            return await MeasureAsync(dir, reactors, port, broker, log);
         }
+        finally
+        {
+            if (broker is not null)
+            {
+                await broker.DisposeAsync();
+            }
+        }
+    }
+
+    private async Task<StepResult> MeasureAsync(string dir, int reactors, int port, ChildProcess? broker, TextWriter log)
+    {
 
         int statusPort = ChildProcess.FreePort();
         string config = Path.Combine(dir, "load.json");
         var tags = LoadConfig.Write(config, demoConfig, reactors, port, statusPort, Path.Combine(dir, "store.db"));
-        string daemonDll = Path.Combine(AppContext.BaseDirectory, "softsensor.dll");
+        string daemonDll = options.DaemonDll ?? Path.Combine(AppContext.BaseDirectory, "softsensor.dll");
         await using var daemon = ChildProcess.Start("dotnet", [daemonDll, "run", "--config", config], Path.Combine(dir, "daemon.log"));
         await using var metrics = new DaemonMetricsReader(statusPort);
         await using var probe = new LatencyProbe(port);
@@ -67,12 +83,16 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         var ready = Stopwatch.StartNew();
         while (probe.ReactorsSeen < reactors)
         {
-            if (ready.Elapsed > TimeSpan.FromSeconds(120) || daemon.HasExited || warmUp.Task.IsCompleted)
+            if (ready.Elapsed > TimeSpan.FromSeconds(300) || daemon.HasExited || warmUp.Task.IsCompleted)
             {
                 throw new InvalidOperationException($"{reactors} reactors: only {probe.ReactorsSeen} published an estimate within {ready.Elapsed.TotalSeconds:0} s (daemon exited: {daemon.HasExited}; log in {dir}/daemon.log)");
             }
 
             await Task.Delay(100);
+            if (ready.Elapsed.TotalSeconds % 10 < 0.1)
+            {
+                log.WriteLine($"  {reactors} reactors: {probe.ReactorsSeen} publishing estimates after {ready.Elapsed.TotalSeconds:0} s");
+            }
         }
 
         log.WriteLine($"  {reactors} reactors: all publishing after {ready.Elapsed.TotalSeconds:0.0} s; warm-up {options.WarmUp.TotalSeconds:0} s, window {options.Window.TotalSeconds:0} s");
@@ -84,6 +104,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         publisher.ClearLag();
 
         // The measured window: counters from here on; CPU of the daemon (and of our mosquitto) over the window.
+        var hist0 = await metrics.BucketsAsync("softsensor_tag_to_estimate_seconds");
         var cpu0 = daemon.CpuTime();
         var brokerCpu0 = broker?.CpuTime() ?? TimeSpan.Zero;
         var wall = Stopwatch.StartNew();
@@ -96,6 +117,8 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         var brokerCpu = (broker?.CpuTime() ?? TimeSpan.Zero) - brokerCpu0;
         double rss = daemon.PeakRssMiB();
         string loadAverage = string.Join(' ', File.ReadAllText("/proc/loadavg").Split(' ')[..3]);
+        var hist1 = await metrics.BucketsAsync("softsensor_tag_to_estimate_seconds");
+        var (within50, p99Bound) = Histogram(hist0, hist1);
         await StopAsync(measured);
         long publishedInWindow = publisher.Published - published0;
         long mapped = publisher.PublishedMapped - mapped0;
@@ -106,16 +129,15 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         Array.Sort(latencies);
         var lag = publisher.LagMs.ToArray();
         Array.Sort(lag);
-        if (broker is not null)
-        {
-            await broker.DisposeAsync();
-        }
-
         return new StepResult(
             reactors, windowS, publishedInWindow, mapped, accepted, rejected,
             (long)Math.Round(reactors * windowS), probe.Received,
             Percentile(latencies, 0.50), Percentile(latencies, 0.95), Percentile(latencies, 0.99), latencies.Length == 0 ? double.NaN : latencies[^1],
-            Percentile(lag, 0.99), 100 * cpu.TotalSeconds / windowS, rss, 100 * brokerCpu.TotalSeconds / windowS, loadAverage);
+            Percentile(lag, 0.99), 100 * cpu.TotalSeconds / windowS, rss, 100 * brokerCpu.TotalSeconds / windowS, loadAverage)
+        {
+            DaemonWithin50MsPercent = within50,
+            DaemonP99BucketMs = p99Bound,
+        };
     }
 
     private static (Task Task, CancellationTokenSource Stop) Publish(LoadPublisher publisher)
@@ -158,6 +180,21 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         return last;
     }
 
+    /// <summary>From the daemon's own histogram over the window: % of frames dispatched within 50 ms of their newest input's arrival, and the bucket bound holding the p99.</summary>
+    private static (double Within50Percent, double P99BoundMs) Histogram(SortedDictionary<double, long> before, SortedDictionary<double, long> after)
+    {
+        var delta = after.ToDictionary(kv => kv.Key, kv => kv.Value - before.GetValueOrDefault(kv.Key));
+        long total = delta.GetValueOrDefault(double.PositiveInfinity);
+        if (total <= 0)
+        {
+            return (double.NaN, double.NaN);
+        }
+
+        double within = 100.0 * delta.GetValueOrDefault(0.05) / total;
+        double p99 = delta.Where(kv => kv.Value >= 0.99 * total).Select(kv => kv.Key).DefaultIfEmpty(double.PositiveInfinity).Min();
+        return (within, p99 * 1000);
+    }
+
     private static double Percentile(double[] sorted, double p) =>
         sorted.Length == 0 ? double.NaN : sorted[Math.Min(sorted.Length - 1, (int)Math.Ceiling(p * sorted.Length) - 1)];
 }
@@ -181,6 +218,30 @@ internal sealed class DaemonMetricsReader(int port) : IAsyncDisposable
         }
 
         return (long)sum;
+    }
+
+    /// <summary>The cumulative buckets of a histogram summed over all its series: upper bound (s) → count.</summary>
+    public async Task<SortedDictionary<double, long>> BucketsAsync(string name)
+    {
+        string text = await _http.GetStringAsync(new Uri("/metrics", UriKind.Relative));
+        var sums = new SortedDictionary<double, long>();
+        string prefix = name + "_bucket{";
+        foreach (var line in text.AsSpan().EnumerateLines())
+        {
+            if (!line.StartsWith(prefix))
+            {
+                continue;
+            }
+
+            int le = line.IndexOf("le=\"");
+            int close = line[(le + 4)..].IndexOf('"') + le + 4;
+            var bound = line[(le + 4)..close];
+            double b = bound.SequenceEqual("+Inf") ? double.PositiveInfinity : double.Parse(bound, CultureInfo.InvariantCulture);
+            long count = long.Parse(line[(line.LastIndexOf(' ') + 1)..], CultureInfo.InvariantCulture);
+            sums[b] = sums.GetValueOrDefault(b) + count;
+        }
+
+        return sums;
     }
 
     public ValueTask DisposeAsync()

@@ -93,6 +93,9 @@ internal sealed class LoadOptions
 
     public bool KeepFiles { get; private set; }
 
+    /// <summary>Another build of the daemon to run (an A/B comparison in one session); null: the one beside this program.</summary>
+    public string? DaemonDll { get; private set; }
+
     public static bool TryParse(string[] args, out LoadOptions options, out string error)
     {
         options = new LoadOptions();
@@ -146,11 +149,20 @@ internal sealed class LoadOptions
                 case "--all":
                     options.All = true;
                     break;
+                case "--daemon":
+                    options.DaemonDll = Next() is { } dll && File.Exists(dll) ? Path.GetFullPath(dll) : null;
+                    if (options.DaemonDll is null)
+                    {
+                        error = "--daemon: expected the path of an existing softsensor.dll";
+                        return false;
+                    }
+
+                    break;
                 case "--keep":
                     options.KeepFiles = true;
                     break;
                 default:
-                    error = $"unknown argument '{a}' (expected --reactors, --for, --warmup, --broker, --all, --json, --keep)";
+                    error = $"unknown argument '{a}' (expected --reactors, --for, --warmup, --broker, --daemon, --all, --json, --keep)";
                     return false;
             }
         }

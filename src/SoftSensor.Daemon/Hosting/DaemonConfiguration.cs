@@ -21,10 +21,10 @@ internal static class DaemonConfiguration
     public static void Apply(IConfigurationManager configuration, DaemonHostSettings settings)
     {
         configuration.Sources.Clear();
-        configuration.AddJsonFile(Path.Combine(AppContext.BaseDirectory, "appsettings.json"), optional: true, reloadOnChange: false);
+        IndexedJsonConfigurationSource.Add(configuration, Path.Combine(AppContext.BaseDirectory, "appsettings.json"), optional: true);
         if (settings.ConfigFile is { } file)
         {
-            configuration.AddJsonFile(Path.GetFullPath(file), optional: false, reloadOnChange: false);
+            IndexedJsonConfigurationSource.Add(configuration, Path.GetFullPath(file), optional: false);
         }
 
         string folder = settings.SystemFolder ?? SystemFolder;
@@ -32,7 +32,7 @@ internal static class DaemonConfiguration
         {
             foreach (var f in Directory.GetFiles(folder, "*.json").OrderBy(f => f, StringComparer.Ordinal))
             {
-                configuration.AddJsonFile(f, optional: true, reloadOnChange: false);
+                IndexedJsonConfigurationSource.Add(configuration, Path.GetFullPath(f), optional: true);
             }
         }
 

@@ -90,7 +90,7 @@ internal sealed partial class MqttLink : IHostedService, IAsyncDisposable
 
         var message = new MqttApplicationMessageBuilder()
             .WithTopic(topic)
-            .WithPayload(payload.ToArray())
+            .WithPayload(System.Runtime.InteropServices.MemoryMarshal.TryGetArray(payload, out var segment) ? segment : new ArraySegment<byte>(payload.ToArray()))
             .WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce)
             .WithRetainFlag(retain)
             .Build();

@@ -11,6 +11,7 @@ namespace SoftSensor.Daemon.Mqtt;
 internal sealed class MqttTopics
 {
     private readonly string _base;
+    private readonly System.Collections.Concurrent.ConcurrentDictionary<(string Reactor, string Name), string> _estimates = new();
 
     public MqttTopics(SoftSensorOptions options)
     {
@@ -21,8 +22,9 @@ internal sealed class MqttTopics
     /// <summary>The daemon's retained online/offline topic (also the last will's).</summary>
     public string Status { get; }
 
-    /// <summary>The topic of one estimate of one reactor.</summary>
-    public string Estimate(string reactor, string name) => $"{_base}/{reactor}/estimate/{name}";
+    /// <summary>The topic of one estimate of one reactor (made once per pair: the sink asks for it every cycle).</summary>
+    public string Estimate(string reactor, string name) =>
+        _estimates.TryGetValue((reactor, name), out var topic) ? topic : _estimates.GetOrAdd((reactor, name), k => $"{_base}/{k.Reactor}/estimate/{k.Name}");
 
     /// <summary>The retained topic of a reactor's batch and phase: <c>{prefix}/{site}/{area}/{reactor}/batch</c>.</summary>
     public string Batch(string reactor) => $"{_base}/{reactor}/batch";

@@ -91,6 +91,28 @@ public sealed class OpcUaPeerServer : IAsyncDisposable
         process = null;
     }
 
+    /// <summary>SIGSTOP: the server process freezes with its sockets open (a hung server, not a closed one).</summary>
+    public Task PauseAsync() => SignalAsync("-STOP");
+
+    /// <summary>SIGCONT after <see cref="PauseAsync"/>.</summary>
+    public Task ResumeAsync() => SignalAsync("-CONT");
+
+    private async Task SignalAsync(string signal)
+    {
+        if (process is null || process.HasExited)
+        {
+            throw new InvalidOperationException("the peer is not running");
+        }
+
+        using var kill = Process.Start("kill", [signal, process.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)])
+            ?? throw new InvalidOperationException("kill did not start");
+        await kill.WaitForExitAsync();
+        if (kill.ExitCode != 0)
+        {
+            throw new InvalidOperationException($"kill {signal} {process.Id} exited {kill.ExitCode}");
+        }
+    }
+
     public async ValueTask DisposeAsync() => await StopAsync();
 
     private static int FreePort()
