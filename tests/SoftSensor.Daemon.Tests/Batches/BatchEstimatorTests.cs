@@ -1,18 +1,9 @@
-using System.Diagnostics.Metrics;
 using Microsoft.Data.Sqlite;
-using Microsoft.Extensions.Configuration;
-using Microsoft.Extensions.DependencyInjection;
-using Microsoft.Extensions.Logging.Abstractions;
-using Microsoft.Extensions.Time.Testing;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Batches;
-using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Demo;
 using SoftSensor.Daemon.Pipeline;
-using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Store;
-using SoftSensor.Simulation;
-using SoftSensor.Simulation.Scenarios;
+using SoftSensor.Daemon.Tests.Pipeline;
 
 namespace SoftSensor.Daemon.Tests.Batches;
 
@@ -23,67 +14,32 @@ namespace SoftSensor.Daemon.Tests.Batches;
 /// </summary>
 public sealed class BatchEstimatorTests : IDisposable
 {
-    private static readonly TimeSpan Period = TimeSpan.FromSeconds(10);
     private readonly string _dir = Directory.CreateTempSubdirectory("softsensor-batchest-").FullName;
-    private readonly ServiceProvider _sp = new ServiceCollection().AddMetrics().BuildServiceProvider();
-    private readonly DaemonMetrics _metrics;
-    private readonly ReactorOptions _reactor;
-    private readonly IReadOnlyList<TagBinding> _bindings;
-    private readonly VirtualReactor _sim;
-    private readonly FakeTimeProvider _time;
-    private readonly ReactorCycleFactory _factory;
+    private readonly DemoEstimatorRig _rig = new();
     private readonly SqliteStore _store;
     private readonly BatchBook _book;
 
     public BatchEstimatorTests()
     {
-        _metrics = new DaemonMetrics(_sp.GetRequiredService<IMeterFactory>());
-        string config = DemoFiles.Find(DemoFiles.Config) ?? throw new FileNotFoundException(DemoFiles.Config);
-        var o = new SoftSensorOptions();
-        new ConfigurationBuilder().AddJsonFile(config).Build().Bind(o);
-        _reactor = o.Reactors[0];
-        _bindings = TagBinding.FromOptions(_reactor);
-        var scenario = ScenarioLoader.Load(DemoFiles.Find(DemoFiles.Scenario) ?? throw new FileNotFoundException(DemoFiles.Scenario));
-        _sim = VirtualReactor.Create(scenario, scenario.Seed);
-        _time = new FakeTimeProvider(_sim.Time);
-        _factory = new ReactorCycleFactory(new ConfigLocation(Path.GetDirectoryName(config)!));
         string db = Path.Combine(_dir, "store.db");
-        _store = new SqliteStore(db, _time);
-        _book = new BatchBook(db, _time);
+        _store = new SqliteStore(db, _rig.Time);
+        _book = new BatchBook(db, _rig.Time);
     }
 
     public void Dispose()
     {
         _store.Dispose();
-        _metrics.Dispose();
-        _sp.Dispose();
+        _rig.Dispose();
         SqliteConnection.ClearAllPools();
         Directory.Delete(_dir, recursive: true);
     }
 
-    private ReactorPipeline NewPipeline()
-    {
-        var dispatcher = new FrameDispatcher([], _metrics, _time, NullLogger<FrameDispatcher>.Instance);
-        var services = new PipelineServices(_time, dispatcher, new StatusBoard(), _store, _metrics, NullLogger.Instance, 1) { Batches = _book };
-        return new ReactorPipeline(_reactor, _bindings, _factory.Create(_reactor, _bindings), [], services);
-    }
+    private ReactorPipeline NewPipeline() => _rig.NewPipeline(_rig.Services(_store, 1) with { Batches = _book }).Pipeline;
 
     /// <summary>Steps the simulator one period, hands its tags to every pipeline (a restarted daemon's inputs are the same), runs the first.</summary>
     private async Task<EstimateFrame> StepAsync(params ReactorPipeline[] pipelines)
     {
-        _sim.Step(Period);
-        foreach (var (name, value) in _sim.ReadTags())
-        {
-            if (_reactor.Tags.ContainsKey(name))
-            {
-                foreach (var p in pipelines)
-                {
-                    p.Accept(new Sample(name, value, _sim.Time, SampleQuality.Good, 0));
-                }
-            }
-        }
-
-        _time.SetUtcNow(_sim.Time);
+        _rig.Step(pipelines);
         return await pipelines[0].RunCycleAsync(default);
     }
 
@@ -176,10 +132,10 @@ public sealed class BatchEstimatorTests : IDisposable
             cmd.ExecuteNonQuery();
         }
 
-        using var store = new SqliteStore(old, _time);
+        using var store = new SqliteStore(old, _rig.Time);
         var legacy = await store.LatestCheckpointAsync("r1", default);
         Assert.Equal((7L, (string?)null), (legacy!.Cycle, legacy.Batch));
-        await store.WriteCheckpointAsync(new Checkpoint("r1", 8, _time.GetUtcNow(), "BBBB", "gly-9"), default);
+        await store.WriteCheckpointAsync(new Checkpoint("r1", 8, _rig.Time.GetUtcNow(), "BBBB", "gly-9"), default);
         Assert.Equal("gly-9", (await store.LatestCheckpointAsync("r1", default))!.Batch);
     }
 }

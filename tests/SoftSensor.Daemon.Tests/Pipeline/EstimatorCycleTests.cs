@@ -1,15 +1,6 @@
-using System.Diagnostics.Metrics;
-using Microsoft.Extensions.Configuration;
-using Microsoft.Extensions.DependencyInjection;
-using Microsoft.Extensions.Logging.Abstractions;
-using Microsoft.Extensions.Time.Testing;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Demo;
 using SoftSensor.Daemon.Pipeline;
-using SoftSensor.Daemon.Status;
-using SoftSensor.Simulation;
-using SoftSensor.Simulation.Scenarios;
 
 namespace SoftSensor.Daemon.Tests.Pipeline;
 
@@ -19,77 +10,29 @@ namespace SoftSensor.Daemon.Tests.Pipeline;
 /// </summary>
 public sealed class EstimatorCycleTests : IDisposable
 {
-    private static readonly TimeSpan Period = TimeSpan.FromSeconds(10);
-    private readonly ServiceProvider _sp = new ServiceCollection().AddMetrics().BuildServiceProvider();
-    private readonly DaemonMetrics _metrics;
-    private readonly ReactorOptions _reactor;
-    private readonly IReadOnlyList<TagBinding> _bindings;
-    private readonly VirtualReactor _sim;
-    private readonly FakeTimeProvider _time;
-    private readonly ReactorCycleFactory _factory;
+    private readonly DemoEstimatorRig _rig = new();
 
-    public EstimatorCycleTests()
-    {
-        _metrics = new DaemonMetrics(_sp.GetRequiredService<IMeterFactory>());
-        string config = DemoFiles.Find(DemoFiles.Config) ?? throw new FileNotFoundException(DemoFiles.Config);
-        var o = new SoftSensorOptions();
-        new ConfigurationBuilder().AddJsonFile(config).Build().Bind(o);
-        _reactor = o.Reactors[0];
-        _bindings = TagBinding.FromOptions(_reactor);
-        var scenario = ScenarioLoader.Load(DemoFiles.Find(DemoFiles.Scenario) ?? throw new FileNotFoundException(DemoFiles.Scenario));
-        _sim = VirtualReactor.Create(scenario, scenario.Seed);
-        _time = new FakeTimeProvider(_sim.Time);
-        _factory = new ReactorCycleFactory(new ConfigLocation(Path.GetDirectoryName(config)!));
-    }
+    public void Dispose() => _rig.Dispose();
 
-    public void Dispose()
-    {
-        _metrics.Dispose();
-        _sp.Dispose();
-    }
+    private (ReactorPipeline Pipeline, IReactorCycle Cycle) NewPipeline() => _rig.NewPipeline(_rig.Services());
 
-    private (ReactorPipeline Pipeline, IReactorCycle Cycle) NewPipeline()
-    {
-        var cycle = _factory.Create(_reactor, _bindings);
-        var dispatcher = new FrameDispatcher([], _metrics, _time, NullLogger<FrameDispatcher>.Instance);
-        var services = new PipelineServices(_time, dispatcher, new StatusBoard(), null, _metrics, NullLogger.Instance, 1_000_000);
-        return (new ReactorPipeline(_reactor, _bindings, cycle, [], services), cycle);
-    }
-
-    /// <summary>Steps the simulator one cycle period, hands its tags to every pipeline, and moves the clock.</summary>
-    private void Step(params ReactorPipeline[] pipelines)
-    {
-        _sim.Step(Period);
-        var tags = _sim.ReadTags();
-        foreach (var (name, value) in tags)
-        {
-            if (_reactor.Tags.ContainsKey(name))
-            {
-                foreach (var p in pipelines)
-                {
-                    p.Accept(new Sample(name, value, _sim.Time, SampleQuality.Good, 0));
-                }
-            }
-        }
-
-        _time.SetUtcNow(_sim.Time);
-    }
+    private void Step(params ReactorPipeline[] pipelines) => _rig.Step(pipelines);
 
     private static EstimateValue Value(EstimateFrame f, string name) => f.Values.Single(v => v.Name == name);
 
     [Fact]
     public void Create_reactor_with_model_file_gets_the_estimator_cycle_and_without_one_the_off_gas_cycle()
     {
-        Assert.IsType<EstimatorCycle>(_factory.Create(_reactor, _bindings));
-        var offGas = new ReactorOptions { Id = "r1", Gas = _reactor.Gas, Tags = _reactor.Tags };
-        Assert.IsType<OffGasCycle>(_factory.Create(offGas, _bindings));
+        Assert.IsType<EstimatorCycle>(_rig.Factory.Create(_rig.Reactor, _rig.Bindings));
+        var offGas = new ReactorOptions { Id = "r1", Gas = _rig.Reactor.Gas, Tags = _rig.Reactor.Tags };
+        Assert.IsType<OffGasCycle>(_rig.Factory.Create(offGas, _rig.Bindings));
     }
 
     [Fact]
     public void Create_missing_model_file_names_the_reactor_and_the_key()
     {
-        var bad = new ReactorOptions { Id = "r9", ModelFile = "no-such-model.json", Gas = _reactor.Gas, Tags = _reactor.Tags };
-        var e = Assert.Throws<InvalidOperationException>(() => _factory.Create(bad, _bindings));
+        var bad = new ReactorOptions { Id = "r9", ModelFile = "no-such-model.json", Gas = _rig.Reactor.Gas, Tags = _rig.Reactor.Tags };
+        var e = Assert.Throws<InvalidOperationException>(() => _rig.Factory.Create(bad, _rig.Bindings));
         Assert.Contains("reactor 'r9' modelFile is 'no-such-model.json'", e.Message, StringComparison.Ordinal);
     }
 
@@ -97,8 +40,8 @@ public sealed class EstimatorCycleTests : IDisposable
     public void Validate_bad_estimator_setting_names_the_reactor_key_and_the_field()
     {
         var o = new SoftSensorOptions();
-        o.Reactors.Add(_reactor);
-        _reactor.Estimator = _reactor.Estimator with { InitialVolumeL = -1 };
+        o.Reactors.Add(_rig.Reactor);
+        _rig.Reactor.Estimator = _rig.Reactor.Estimator with { InitialVolumeL = -1 };
         var result = new SoftSensorOptionsValidator().Validate(null, o);
         Assert.True(result.Failed);
         Assert.Contains("reactors:0:estimator/balance: InitialVolumeL is -1", result.FailureMessage, StringComparison.Ordinal);
@@ -115,7 +58,7 @@ public sealed class EstimatorCycleTests : IDisposable
             frame = await pipeline.RunCycleAsync(default);
         }
 
-        var truth = _sim.Truth();
+        var truth = _rig.Sim.Truth();
         var x = Value(frame!, EstimateNames.BiomassGPerL);
         var mu = Value(frame!, EstimateNames.MuPerH);
         Assert.Equal(SampleQuality.Good, x.Quality);
