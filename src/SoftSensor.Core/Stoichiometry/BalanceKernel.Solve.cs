@@ -38,17 +38,13 @@ internal sealed partial class BalanceKernel
 
             ref double q0 = ref MemoryMarshal.GetReference(q);
             ref double p0 = ref MemoryMarshal.GetReference(psi);
-            h = 0;
-            for (int i = 0; i < m; i++)
+            if (!ValidMeasurements(ref q0, ref p0, m))
             {
-                double v = Unsafe.Add(ref p0, (i * m) + i);
-                double qi = Unsafe.Add(ref q0, i);
-                if (!double.IsFinite(qi) || !double.IsFinite(v) || v < 0)
-                {
-                    h = double.NaN;
-                    return BalanceStatus.InvalidMeasurement;
-                }
+                h = double.NaN;
+                return BalanceStatus.InvalidMeasurement;
             }
+
+            h = 0;
 
             q.CopyTo(_qs);
             bool wantCov = !sigmas.IsEmpty || !covariance.IsEmpty;
@@ -86,17 +82,13 @@ internal sealed partial class BalanceKernel
 
             ref double q0 = ref MemoryMarshal.GetReference(q);
             ref double p0 = ref MemoryMarshal.GetReference(psi);
-            h = 0;
-            for (int i = 0; i < m; i++)
+            if (!ValidMeasurements(ref q0, ref p0, m))
             {
-                double v = Unsafe.Add(ref p0, (i * m) + i);
-                double qi = Unsafe.Add(ref q0, i);
-                if (!double.IsFinite(qi) || !double.IsFinite(v) || v < 0)
-                {
-                    h = double.NaN;
-                    return false;
-                }
+                h = double.NaN;
+                return false;
             }
+
+            h = 0;
 
             q.CopyTo(_qs);
             if (Redundancy > 0 && !Reconcile(ref q0, ref p0, false, out h))
@@ -327,5 +319,22 @@ internal sealed partial class BalanceKernel
 
             return s;
         }
+    }
+
+    /// <summary>True when every measured rate is finite and every variance on the diagonal of Ψ (m × m) is finite and not negative.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static bool ValidMeasurements(ref double q0, ref double p0, int m)
+    {
+        for (int i = 0; i < m; i++)
+        {
+            double v = Unsafe.Add(ref p0, (i * m) + i);
+            double qi = Unsafe.Add(ref q0, i);
+            if (!double.IsFinite(qi) || !double.IsFinite(v) || v < 0)
+            {
+                return false;
+            }
+        }
+
+        return true;
     }
 }
