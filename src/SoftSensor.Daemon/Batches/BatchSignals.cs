@@ -11,7 +11,7 @@ namespace SoftSensor.Daemon.Batches;
 /// The batch lifecycle from the plant for one reactor: the batch-id tag (a change ends the open batch
 /// and starts the new one, with the initial conditions of <see cref="ReactorBatchOptions"/>), the phase
 /// tag (a numeric code mapped by <c>batches:phaseCodes</c>) and the fed-batch start detected from the
-/// feed (<see cref="FeedStartDetector"/>). Threading: <see cref="Accept"/> from the ingest task,
+/// feed (<see cref="FeedStartDetector"/>). Threading: <see cref="Accept"/> from the sources' threads,
 /// <see cref="Apply"/> from the cycle task; a lock keeps the latest readings.
 /// </summary>
 internal sealed class BatchSignals

@@ -1,5 +1,4 @@
 using System.Buffers;
-using System.Threading.Channels;
 using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
@@ -11,8 +10,8 @@ namespace SoftSensor.Daemon.Mqtt;
 
 /// <summary>
 /// The MQTT tags of one reactor: registers a handler per tag topic on the shared <see cref="MqttLink"/>,
-/// decodes each payload by the tag's layout, scales it to the role's unit and writes the sample
-/// into the pipeline's channel (waiting when it is full). Malformed payloads are dropped, counted
+/// decodes each payload by the tag's layout, scales it to the role's unit and hands the sample to
+/// the pipeline's intake on MQTTnet's receive task. Malformed payloads are dropped, counted
 /// and logged with their topic. A payload without a timestamp gets its arrival time.
 /// </summary>
 internal sealed class MqttSampleSource : ISampleSource
@@ -36,11 +35,11 @@ internal sealed class MqttSampleSource : ISampleSource
 
     public string Name => "mqtt";
 
-    public async Task RunAsync(ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    public async Task RunAsync(ISampleIntake samples, CancellationToken cancellationToken)
     {
         foreach (var b in _bindings)
         {
-            _link.Subscribe(b.Topic, (topic, payload) => OnPayloadAsync(b, topic, payload, samples, cancellationToken));
+            _link.Subscribe(b.Topic, (topic, payload) => OnPayload(b, topic, payload, samples));
         }
 
         try
@@ -56,7 +55,7 @@ internal sealed class MqttSampleSource : ISampleSource
         }
     }
 
-    private ValueTask OnPayloadAsync(TagBinding b, string topic, ReadOnlySequence<byte> payload, ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    private ValueTask OnPayload(TagBinding b, string topic, ReadOnlySequence<byte> payload, ISampleIntake samples)
     {
         bool text = b.Role == SignalRole.BatchId;
         if (!PayloadDecoder.TryDecode(payload, b.Payload, out var r, out string error, text))
@@ -69,7 +68,8 @@ internal sealed class MqttSampleSource : ISampleSource
         if (text)
         {
             var id = new Sample(b.Tag, double.NaN, r.SourceTime ?? _time.GetUtcNow(), r.Quality, r.StatusCode) { Text = r.Text };
-            return samples.TryWrite(id) ? ValueTask.CompletedTask : samples.WriteAsync(id, cancellationToken);
+            samples.Take(id);
+            return ValueTask.CompletedTask;
         }
 
         double value = b.ToRoleUnit(r.Value);
@@ -81,7 +81,8 @@ internal sealed class MqttSampleSource : ISampleSource
         }
 
         var sample = new Sample(b.Tag, value, r.SourceTime ?? _time.GetUtcNow(), r.Quality, r.StatusCode);
-        return samples.TryWrite(sample) ? ValueTask.CompletedTask : samples.WriteAsync(sample, cancellationToken);
+        samples.Take(sample);
+        return ValueTask.CompletedTask;
     }
 }
 

@@ -1,4 +1,3 @@
-using System.Threading.Channels;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Core.Signals;
@@ -27,7 +26,7 @@ internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IR
 
     public string Name => "opcua";
 
-    public async Task RunAsync(ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    public async Task RunAsync(ISampleIntake samples, CancellationToken cancellationToken)
     {
         var item = new MonitoredItemSettings
         {
@@ -38,11 +37,11 @@ internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IR
             Trigger = DataChangeTrigger.StatusValueTimestamp,
         };
         var nodes = bindings.Select((b, i) => new MonitoredNode(i, new NodeReference(b.OpcUaNode), item)).ToList();
-        var client = OpcUaClientFactory.Create(options, nodes, (change, ct) => OnChangeAsync(change, samples, ct), TimeProvider.System, logger);
+        var client = OpcUaClientFactory.Create(options, nodes, (change, _) => OnChange(change, samples), TimeProvider.System, logger);
         await client.RunAsync(cancellationToken);
     }
 
-    private ValueTask OnChangeAsync(ItemChange change, ChannelWriter<Sample> samples, CancellationToken cancellationToken)
+    private ValueTask OnChange(ItemChange change, ISampleIntake samples)
     {
         var b = bindings[change.Handle];
         var dv = change.Value;
@@ -59,7 +58,8 @@ internal sealed class OpcUaSampleSource(string reactor, OpcUaOptions options, IR
             : dv.ServerTimestamp != DateTime.MinValue ? dv.ServerTimestamp
             : time.GetUtcNow().UtcDateTime;
         var sample = new Sample(b.Tag, value, new DateTimeOffset(stamp, TimeSpan.Zero), SampleQualities.FromStatusCode(dv.Status.Code), dv.Status.Code);
-        return samples.TryWrite(sample) ? ValueTask.CompletedTask : samples.WriteAsync(sample, cancellationToken);
+        samples.Take(sample);
+        return ValueTask.CompletedTask;
     }
 }
 

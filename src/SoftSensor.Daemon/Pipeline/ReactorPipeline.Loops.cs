@@ -4,7 +4,7 @@ using SoftSensor.Daemon.Sources;
 
 namespace SoftSensor.Daemon.Pipeline;
 
-/// <summary>The tasks of a pipeline: the cycle loop (on the period, or on the trigger tag), the ingest task, the sources.</summary>
+/// <summary>The tasks of a pipeline: the cycle loop (on the period, or on the trigger tag) and the sources.</summary>
 internal sealed partial class ReactorPipeline
 {
     private async Task CycleLoopAsync(CancellationToken cancellationToken)
@@ -44,22 +44,11 @@ internal sealed partial class ReactorPipeline
         }
     }
 
-    private async Task IngestAsync(ChannelReader<Sample> reader, CancellationToken cancellationToken)
-    {
-        while (await reader.WaitToReadAsync(cancellationToken))
-        {
-            while (reader.TryRead(out var sample))
-            {
-                Accept(sample);
-            }
-        }
-    }
-
-    private async Task RunSourceAsync(ISampleSource source, ChannelWriter<Sample> writer, CancellationToken cancellationToken)
+    private async Task RunSourceAsync(ISampleSource source, CancellationToken cancellationToken)
     {
         try
         {
-            await source.RunAsync(writer, cancellationToken);
+            await source.RunAsync(this, cancellationToken);
         }
         catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
         {

@@ -9,8 +9,8 @@ using SoftSensor.Daemon.Status;
 namespace SoftSensor.Daemon.Pipeline;
 
 /// <summary>
-/// One reactor: its sources write samples into a bounded channel, one task moves them into the
-/// signal store, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
+/// One reactor: its sources hand samples to the pipeline (its <see cref="ISampleIntake"/>), which
+/// takes them into the signal store on the source's own thread, and a cycle runs on the reactor's period (on the injected <see cref="TimeProvider"/>)
 /// with the aligned inputs; the frame goes to the dispatcher and the status board. With a
 /// <c>cycleTrigger</c> tag the cycle runs as soon as that tag's sample is taken in, and at the latest
 /// one period after the previous cycle. The estimator
@@ -20,7 +20,7 @@ namespace SoftSensor.Daemon.Pipeline;
 /// to, it calls <see cref="IReactorCycle.BeginBatch"/> with the batch's initial conditions before
 /// the cycle runs, and checkpoints right after it. A checkpoint of another batch is not restored.
 /// </summary>
-internal sealed partial class ReactorPipeline
+internal sealed partial class ReactorPipeline : ISampleIntake
 {
     private readonly ReactorOptions _options;
     private readonly SignalStore _signals;
@@ -71,14 +71,9 @@ internal sealed partial class ReactorPipeline
     public async Task RunAsync(CancellationToken cancellationToken)
     {
         await RestoreAsync(cancellationToken);
-        var channel = Channel.CreateBounded<Sample>(new BoundedChannelOptions(8192)
-        {
-            SingleReader = true,
-            FullMode = BoundedChannelFullMode.Wait,
-        });
         PipelineLog.Started(_services.Logger, Reactor, _options.CyclePeriod, _signals.Bindings.Count, string.Join(", ", _sources.Select(s => s.Name)));
-        var tasks = new List<Task> { IngestAsync(channel.Reader, cancellationToken), _trigger is null ? CycleLoopAsync(cancellationToken) : TriggeredLoopAsync(_trigger.Reader, cancellationToken) };
-        tasks.AddRange(_sources.Select(s => RunSourceAsync(s, channel.Writer, cancellationToken)));
+        var tasks = new List<Task> { _trigger is null ? CycleLoopAsync(cancellationToken) : TriggeredLoopAsync(_trigger.Reader, cancellationToken) };
+        tasks.AddRange(_sources.Select(s => RunSourceAsync(s, cancellationToken)));
         try
         {
             await Task.WhenAll(tasks);
@@ -92,7 +87,10 @@ internal sealed partial class ReactorPipeline
         PipelineLog.Stopped(_services.Logger, Reactor, Interlocked.Read(ref _cycles));
     }
 
-    /// <summary>Takes one sample (in the role's unit), as the ingest task does; for sources that run inside the pipeline's task and for tests.</summary>
+    /// <inheritdoc/>
+    bool ISampleIntake.Take(in Sample sample) => Accept(sample);
+
+    /// <summary>Takes one sample (in the role's unit) from any thread: what the sources hand to the intake; for tests too.</summary>
     public bool Accept(in Sample sample)
     {
         bool ok;

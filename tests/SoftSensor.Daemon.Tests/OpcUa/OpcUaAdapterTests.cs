@@ -39,7 +39,7 @@ public sealed class OpcUaAdapterTests(OpcUaPeerFixture peer) : IClassFixture<Opc
         Assert.NotNull(source);
         var channel = Channel.CreateBounded<Sample>(1000);
         using var cts = new CancellationTokenSource(TimeSpan.FromSeconds(30));
-        var run = source.RunAsync(channel.Writer, cts.Token);
+        var run = source.RunAsync(new ChannelIntake(channel.Writer), cts.Token);
 
         var seen = new Dictionary<string, Sample>();
         while (seen.Count < 2)
@@ -93,6 +93,12 @@ public sealed class OpcUaAdapterTests(OpcUaPeerFixture peer) : IClassFixture<Opc
         Assert.Equal(stamp.UtcDateTime, our.SourceTimestamp);
         Assert.Equal(1.02, rq.Value.AsDouble());
         Assert.Equal(SoftSensor.OpcUa.Encoding.StatusCodes.UncertainSubNormal, rq.Status.Code); // Part 8 §7.3.2
+    }
+
+    /// <summary>Hands what the source takes in to a channel the test reads.</summary>
+    private sealed class ChannelIntake(ChannelWriter<Sample> writer) : SoftSensor.Daemon.Sources.ISampleIntake
+    {
+        public bool Take(in Sample sample) => writer.TryWrite(sample);
     }
 }
 
