@@ -28,13 +28,14 @@ internal sealed class PrometheusExporter : IDisposable
             bool ours = instrument.Meter.Name is DaemonMetrics.MeterName or Timeseries.TimeseriesMetrics.MeterName;
             if (ours && ReferenceEquals(instrument.Meter.Scope, metrics.Scope))
             {
-                _meta[NameOf(instrument)] = (KindOf(instrument), instrument.Description ?? instrument.Name);
-                listener.EnableMeasurementEvents(instrument);
+                var info = new InstrumentInfo(NameOf(instrument), KindOf(instrument));
+                _meta[info.Name] = (info.Kind, instrument.Description ?? instrument.Name);
+                listener.EnableMeasurementEvents(instrument, info);
             }
         };
-        _listener.SetMeasurementEventCallback<int>((i, v, tags, _) => Record(i, v, tags));
-        _listener.SetMeasurementEventCallback<long>((i, v, tags, _) => Record(i, v, tags));
-        _listener.SetMeasurementEventCallback<double>((i, v, tags, _) => Record(i, v, tags));
+        _listener.SetMeasurementEventCallback<int>((_, v, tags, state) => Record((InstrumentInfo)state!, v, tags));
+        _listener.SetMeasurementEventCallback<long>((_, v, tags, state) => Record((InstrumentInfo)state!, v, tags));
+        _listener.SetMeasurementEventCallback<double>((_, v, tags, state) => Record((InstrumentInfo)state!, v, tags));
         _listener.Start();
     }
 
@@ -75,10 +76,10 @@ internal sealed class PrometheusExporter : IDisposable
         return KindOf(instrument) == "counter" && !name.EndsWith("_total", StringComparison.Ordinal) ? name + "_total" : name;
     }
 
-    private void Record(Instrument instrument, double value, ReadOnlySpan<KeyValuePair<string, object?>> tags)
+    private void Record(InstrumentInfo instrument, double value, ReadOnlySpan<KeyValuePair<string, object?>> tags)
     {
         var series = Get(instrument, tags);
-        switch (KindOf(instrument))
+        switch (instrument.Kind)
         {
             case "histogram":
                 series.Observe(value);
@@ -92,27 +93,53 @@ internal sealed class PrometheusExporter : IDisposable
         }
     }
 
-    private Series Get(Instrument instrument, ReadOnlySpan<KeyValuePair<string, object?>> tags)
+    /// <summary>
+    /// The series of a tag set. Measurements come at the tag rate (tens of thousands a second under
+    /// load), so the usual one-tag case is a lookup on the tag's key and value, with the labels
+    /// text built once per series.
+    /// </summary>
+    private Series Get(InstrumentInfo instrument, ReadOnlySpan<KeyValuePair<string, object?>> tags)
     {
-        string labels = "";
-        if (tags.Length > 0)
+        if (tags.Length == 1)
         {
-            var parts = new List<string>(tags.Length);
-            foreach (var t in tags)
+            var key = (tags[0].Key, tags[0].Value);
+            if (instrument.ByOneTag.TryGetValue(key, out var cached))
             {
-                parts.Add($"{t.Key}=\"{Escape(Convert.ToString(t.Value, CultureInfo.InvariantCulture) ?? "")}\"");
+                return cached;
             }
 
-            parts.Sort(StringComparer.Ordinal);
-            labels = string.Join(",", parts);
+            return instrument.ByOneTag.GetOrAdd(key, _series.GetOrAdd((instrument.Name, Labels(tags)), _ => new Series()));
         }
 
-        return _series.GetOrAdd((NameOf(instrument), labels), _ => new Series());
+        return _series.GetOrAdd((instrument.Name, Labels(tags)), _ => new Series());
+    }
+
+    private static string Labels(ReadOnlySpan<KeyValuePair<string, object?>> tags)
+    {
+        if (tags.Length == 0)
+        {
+            return "";
+        }
+
+        var parts = new List<string>(tags.Length);
+        foreach (var t in tags)
+        {
+            parts.Add($"{t.Key}=\"{Escape(Convert.ToString(t.Value, CultureInfo.InvariantCulture) ?? "")}\"");
+        }
+
+        parts.Sort(StringComparer.Ordinal);
+        return string.Join(",", parts);
     }
 
     private static string Escape(string v) => v.Replace("\\", "\\\\", StringComparison.Ordinal).Replace("\"", "\\\"", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
 
     private static string Num(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+
+    /// <summary>An instrument's Prometheus name and kind, computed once, with its one-tag series.</summary>
+    private sealed record InstrumentInfo(string Name, string Kind)
+    {
+        public ConcurrentDictionary<(string Key, object? Value), Series> ByOneTag { get; } = new();
+    }
 
     private sealed class Series
     {
