@@ -22,7 +22,7 @@ internal sealed class SignalStore
         for (int i = 0; i < _bindings.Length; i++)
         {
             _index.Add(_bindings[i].Tag, i);
-            _histories[i] = new TagHistory(HistoryCapacity);
+            _histories[i] = new TagHistory(HistoryCapacity, _bindings[i].Tag);
         }
     }
 

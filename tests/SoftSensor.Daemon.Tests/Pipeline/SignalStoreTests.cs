@@ -76,11 +76,35 @@ public class SignalStoreTests
     [Fact]
     public void TagHistory_late_sample_is_inserted_in_time_order()
     {
-        var h = new TagHistory(4);
+        var h = new TagHistory(4, "x");
         h.Add(new Sample("x", 1, T0, SampleQuality.Good, 0));
         h.Add(new Sample("x", 3, T0.AddSeconds(20), SampleQuality.Good, 0));
         h.Add(new Sample("x", 2, T0.AddSeconds(10), SampleQuality.Good, 0));
         Assert.Equal(2, h.AtOrBefore(T0.AddSeconds(15))!.Value.Value);
         Assert.Equal(3, h.Latest!.Value.Value);
+        Assert.Equal("x", h.Latest!.Value.Tag);
+    }
+
+    [Fact]
+    public void TagHistory_grows_to_its_capacity_then_drops_the_oldest_in_order()
+    {
+        // Starts at 8 entries and doubles: the order must survive growing from a ring that has wrapped.
+        var h = new TagHistory(20, "x");
+        for (int i = 0; i < 6; i++)
+        {
+            h.Add(new Sample("x", i, T0.AddSeconds(i), SampleQuality.Good, 0));
+        }
+
+        h.TrimBefore(T0.AddSeconds(3)); // keeps 3, 4, 5; the ring's start has moved
+        for (int i = 6; i < 40; i++)
+        {
+            h.Add(new Sample("x", i, T0.AddSeconds(i), SampleQuality.Good, 0));
+        }
+
+        var held = new List<Sample>();
+        h.CopyTo(held);
+        Assert.Equal(20, h.Count);
+        Assert.Equal(Enumerable.Range(20, 20).Select(i => (double)i), held.Select(s => s.Value));
+        Assert.Equal(25, h.AtOrBefore(T0.AddSeconds(25.5))!.Value.Value);
     }
 }
