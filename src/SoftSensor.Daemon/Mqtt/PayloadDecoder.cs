@@ -183,10 +183,13 @@ internal static class PayloadDecoder
         }
     }
 
+    // A path's parts, split once (payloads come at the tag rate; the configured paths are few).
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, string[]> Paths = new(StringComparer.Ordinal);
+
     private static bool TryPath(JsonElement root, string path, out JsonElement element)
     {
         element = root;
-        foreach (var part in path.Split('.'))
+        foreach (var part in Paths.GetOrAdd(path, p => p.Split('.')))
         {
             if (element.ValueKind != JsonValueKind.Object || !element.TryGetProperty(part, out element))
             {
@@ -226,8 +229,22 @@ internal static class PayloadDecoder
             return true;
         }
 
-        return e.ValueKind == JsonValueKind.String
-            && DateTimeOffset.TryParse(e.GetString(), CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out time);
+        if (e.ValueKind != JsonValueKind.String)
+        {
+            return false;
+        }
+
+        // ISO 8601 (the usual form) without making a string: with Z or an offset as given; without an
+        // offset (DateTimeKind.Unspecified) as UTC, like the parser below with AssumeUniversal.
+        if (e.TryGetDateTime(out var dt))
+        {
+            time = dt.Kind == DateTimeKind.Unspecified ? new DateTimeOffset(DateTime.SpecifyKind(dt, DateTimeKind.Utc))
+                : e.TryGetDateTimeOffset(out var withOffset) ? withOffset.ToUniversalTime()
+                : default;
+            return time != default;
+        }
+
+        return DateTimeOffset.TryParse(e.GetString(), CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out time);
     }
 
     private static bool TryQuality(JsonElement e, out SampleQuality quality)
@@ -239,6 +256,9 @@ internal static class PayloadDecoder
                 quality = SampleQuality.Good;
                 return true;
             case JsonValueKind.False:
+                return true;
+            case JsonValueKind.String when e.ValueEquals("good"):
+                quality = SampleQuality.Good;
                 return true;
             case JsonValueKind.String:
                 switch (e.GetString()?.ToLowerInvariant())

@@ -22,6 +22,22 @@ public class PayloadDecoderTests
         Assert.Equal(0x40920000u, r.StatusCode);
     }
 
+    [Theory]
+    // ISO 8601 (ISO 8601-1:2019 §5.4): Z, an offset, fractions, and no offset (read as UTC, not as the machine's local time).
+    [InlineData("2026-12-01T10:00:00Z", "2026-12-01T10:00:00+00:00")]
+    [InlineData("2026-12-01T11:30:00+01:30", "2026-12-01T10:00:00+00:00")]
+    [InlineData("2026-12-01T05:00:00.250-05:00", "2026-12-01T10:00:00.250+00:00")]
+    [InlineData("2026-12-01T10:00:00", "2026-12-01T10:00:00+00:00")]
+    [InlineData("2026-12-01 10:00:00Z", "2026-12-01T10:00:00+00:00")]
+    public void TryDecode_iso_timestamps_are_read_as_utc_instants(string stamp, string expected)
+    {
+        bool ok = PayloadDecoder.TryDecode(Bytes($$"""{"value": 1, "timestamp": "{{stamp}}"}"""), new PayloadOptions(), out var r, out var error);
+
+        Assert.True(ok, error);
+        Assert.Equal(DateTimeOffset.Parse(expected, System.Globalization.CultureInfo.InvariantCulture), r.SourceTime);
+        Assert.Equal(TimeSpan.Zero, r.SourceTime!.Value.Offset);
+    }
+
     [Fact]
     public void TryDecode_nested_paths_and_unix_milliseconds_are_read()
     {
