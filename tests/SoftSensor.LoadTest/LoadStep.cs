@@ -105,6 +105,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
 
         // The measured window: counters from here on; CPU of the daemon (and of our mosquitto) over the window.
         var hist0 = await metrics.BucketsAsync("softsensor_tag_to_estimate_seconds");
+        var sinks0 = await metrics.SumsByLabelAsync("softsensor_sink_write_seconds_sum", "sink");
         var cpu0 = daemon.CpuTime();
         var brokerCpu0 = broker?.CpuTime() ?? TimeSpan.Zero;
         var wall = Stopwatch.StartNew();
@@ -118,6 +119,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         double rss = daemon.PeakRssMiB();
         string loadAverage = string.Join(' ', File.ReadAllText("/proc/loadavg").Split(' ')[..3]);
         var hist1 = await metrics.BucketsAsync("softsensor_tag_to_estimate_seconds");
+        var sinks1 = await metrics.SumsByLabelAsync("softsensor_sink_write_seconds_sum", "sink");
         var (within50, p99Bound) = Histogram(hist0, hist1);
         await StopAsync(measured);
         long publishedInWindow = publisher.Published - published0;
@@ -137,6 +139,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         {
             DaemonWithin50MsPercent = within50,
             DaemonP99BucketMs = p99Bound,
+            SinkBusyPercent = sinks1.ToDictionary(kv => kv.Key, kv => 100 * (kv.Value - sinks0.GetValueOrDefault(kv.Key)) / windowS),
         };
     }
 
@@ -218,6 +221,33 @@ internal sealed class DaemonMetricsReader(int port) : IAsyncDisposable
         }
 
         return (long)sum;
+    }
+
+    /// <summary>A metric's value per value of one label, e.g. each sink's <c>_sum</c>.</summary>
+    public async Task<Dictionary<string, double>> SumsByLabelAsync(string name, string label)
+    {
+        string text = await _http.GetStringAsync(new Uri("/metrics", UriKind.Relative));
+        var sums = new Dictionary<string, double>(StringComparer.Ordinal);
+        string open = label + "=\"";
+        foreach (var line in text.AsSpan().EnumerateLines())
+        {
+            if (!line.StartsWith(name + "{", StringComparison.Ordinal))
+            {
+                continue;
+            }
+
+            int at = line.IndexOf(open, StringComparison.Ordinal);
+            if (at < 0)
+            {
+                continue;
+            }
+
+            var rest = line[(at + open.Length)..];
+            string key = rest[..rest.IndexOf('"')].ToString();
+            sums[key] = sums.GetValueOrDefault(key) + double.Parse(line[(line.LastIndexOf(' ') + 1)..], CultureInfo.InvariantCulture);
+        }
+
+        return sums;
     }
 
     /// <summary>The cumulative buckets of a histogram summed over all its series: upper bound (s) → count.</summary>

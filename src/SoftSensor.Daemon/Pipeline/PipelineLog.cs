@@ -40,4 +40,7 @@ internal static partial class PipelineLog
 
     [LoggerMessage(1011, LogLevel.Error, "Reactor {Reactor}: batch {Batch} could not reset the estimator: {Reason}")]
     public static partial void BatchBeginFailed(ILogger logger, string reactor, string batch, string reason);
+
+    [LoggerMessage(1012, LogLevel.Warning, "Sink {Sink}: writes still in flight after {Timeout} at stop; not waiting longer")]
+    public static partial void SinkDrainTimedOut(ILogger logger, string sink, TimeSpan timeout);
 }

@@ -27,3 +27,15 @@ internal interface IEstimateBatchSink : IEstimateSink
     /// <summary>Takes several frames.</summary>
     ValueTask WriteBatchAsync(IReadOnlyList<EstimateFrame> frames, CancellationToken cancellationToken);
 }
+
+/// <summary>
+/// A sink whose writes complete after it returned (MQTT QoS 1: the broker's acknowledgements come
+/// back while the dispatcher goes on with the next frames, up to a bounded window). The dispatcher
+/// calls <see cref="DrainAsync"/> once, after its last frames at stop, so nothing in flight is cut
+/// off by the shutdown.
+/// </summary>
+internal interface IPipelinedSink : IEstimateSink
+{
+    /// <summary>Waits until every write handed over so far has completed (or failed and been counted).</summary>
+    ValueTask DrainAsync(CancellationToken cancellationToken);
+}

@@ -22,6 +22,7 @@ internal sealed class DaemonMetrics : IDisposable
         PublishFailures = _meter.CreateCounter<long>("softsensor_publish_failures_total", null, "Publishes or sink writes that failed");
         Cycles = _meter.CreateCounter<long>("softsensor_cycles_total", null, "Cycles run");
         Reconnects = _meter.CreateCounter<long>("softsensor_mqtt_reconnects_total", null, "MQTT connections established after the first");
+        SinkWriteSeconds = _meter.CreateHistogram<double>("softsensor_sink_write_seconds", "s", "Time one sink took for the frames the dispatcher handed it together (its _sum per second of wall time: the share of the dispatcher's time it takes)");
         TagToEstimateSeconds = _meter.CreateHistogram<double>("softsensor_tag_to_estimate_seconds", "s", "Arrival of the newest input to the frame leaving the dispatcher");
     }
 
@@ -41,6 +42,9 @@ internal sealed class DaemonMetrics : IDisposable
     public Counter<long> Reconnects { get; }
 
     public Histogram<double> TagToEstimateSeconds { get; }
+
+    /// <summary>Seconds per sink call of the dispatcher (tag <c>sink</c>).</summary>
+    public Histogram<double> SinkWriteSeconds { get; }
 
     public void Dispose() => _meter.Dispose();
 }
