@@ -17,7 +17,7 @@ namespace SoftSensor.Daemon.Hosting;
 
 /// <summary>
 /// The daemon's registrations. To plug in: add an <see cref="IEstimateSink"/>
-/// (<c>services.AddSingleton&lt;IEstimateSink, MySink&gt;()</c>: it runs after the store and MQTT
+/// (<c>services.AddSingleton&lt;IEstimateSink, MySink&gt;()</c>: it runs after the MQTT and store
 /// sinks), an <see cref="ISampleSourceFactory"/>, or a hosted service; the store
 /// (<see cref="SqliteStore"/>) and <see cref="MqttLink"/> are singletons to inject.
 /// </summary>
@@ -44,9 +44,11 @@ internal static class DaemonServices
         services.AddSingleton(sp => ActivatorUtilities.CreateInstance<MqttLink>(sp, TimeProvider.System));
         services.AddSingleton<ISampleSourceFactory, MqttSampleSourceFactory>();
 
-        // Sinks run in registration order: the store first (the durable outbox), then MQTT.
-        services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
+        // Sinks run in registration order: MQTT first (the operators' trends wait on it; its publishes
+        // are pipelined, so it hands over and returns), then the store (the history and the durable
+        // outbox, which does not depend on MQTT having been first or last).
         services.AddSingleton<IEstimateSink, MqttEstimateSink>();
+        services.AddSingleton<IEstimateSink, SqliteEstimateSink>();
         services.AddTimeseries(configuration).AddAlarms(configuration);
 
         // OPC UA: tags with an opcUaNode, and estimates written back (section opcUa); after MQTT.
