@@ -31,40 +31,65 @@ internal sealed class MqttEstimateSink(MqttLink link, MqttTopics topics) : IEsti
 
     public ValueTask WriteAsync(EstimateFrame frame, CancellationToken cancellationToken) => WriteBatchAsync([frame], cancellationToken);
 
-    /// <summary>Hands every value of every frame to the link (QoS 1: the broker acknowledges each, later).</summary>
+    /// <summary>
+    /// Hands every value of every frame to the link (QoS 1: the broker acknowledges each, later), the
+    /// link holding the writes back until all are handed over so that they leave together.
+    /// </summary>
     public async ValueTask WriteBatchAsync(IReadOnlyList<EstimateFrame> frames, CancellationToken cancellationToken)
     {
-        // Frames arrive one batch at a time from the dispatcher: the dictionary needs no lock.
-        foreach (var frame in frames)
+        link.HoldWrites();
+        try
         {
-            bool same = _batches.TryGetValue(frame.Reactor, out var last) && last.Batch == frame.BatchId && last.Phase == frame.Phase;
-            if (!same || last.Frames >= BatchRepeatFrames)
+            // Frames arrive one batch at a time from the dispatcher: the dictionary needs no lock.
+            foreach (var frame in frames)
             {
-                bool sent = await link.PublishAsync(topics.Batch(frame.Reactor), BatchPayload(frame), retain: true, cancellationToken);
-                _batches[frame.Reactor] = (frame.BatchId, frame.Phase, sent ? 1 : BatchRepeatFrames);
-            }
-            else
-            {
-                _batches[frame.Reactor] = last with { Frames = last.Frames + 1 };
-            }
-        }
-
-        foreach (var frame in frames)
-        {
-            foreach (var v in frame.Values)
-            {
-                await _window.WaitAsync(cancellationToken);
-                var publish = link.PublishAsync(topics.Estimate(frame.Reactor, v.Name), EstimatePayload.Encode(v, frame.SourceTime), retain: true, cancellationToken);
-                if (publish.IsCompleted)
+                bool same = _batches.TryGetValue(frame.Reactor, out var last) && last.Batch == frame.BatchId && last.Phase == frame.Phase;
+                if (!same || last.Frames >= BatchRepeatFrames)
                 {
-                    _window.Release();
+                    // Offline shows at once (false, synchronously): then it is sent again with the next frame.
+                    bool offline = !await PublishAsync(topics.Batch(frame.Reactor), BatchPayload(frame), cancellationToken);
+                    _batches[frame.Reactor] = (frame.BatchId, frame.Phase, offline ? BatchRepeatFrames : 1);
                 }
                 else
                 {
-                    _ = ReleaseWhenDoneAsync(publish);
+                    _batches[frame.Reactor] = last with { Frames = last.Frames + 1 };
+                }
+            }
+
+            foreach (var frame in frames)
+            {
+                foreach (var v in frame.Values)
+                {
+                    await PublishAsync(topics.Estimate(frame.Reactor, v.Name), EstimatePayload.Encode(v, frame.SourceTime), cancellationToken);
                 }
             }
         }
+        finally
+        {
+            await link.ReleaseWritesAsync(cancellationToken);
+        }
+    }
+
+    /// <summary>Hands one publish to the link within the window; false only when it failed at once (offline).</summary>
+    private async ValueTask<bool> PublishAsync(string topic, byte[] payload, CancellationToken cancellationToken)
+    {
+        if (!_window.Wait(0))
+        {
+            // The window is full: what is held must leave, or no acknowledgement can come back.
+            await link.ReleaseWritesAsync(cancellationToken);
+            await _window.WaitAsync(cancellationToken);
+            link.HoldWrites();
+        }
+
+        var publish = link.PublishAsync(topic, payload, retain: true, cancellationToken);
+        if (publish.IsCompleted)
+        {
+            _window.Release();
+            return publish.Result;
+        }
+
+        _ = ReleaseWhenDoneAsync(publish);
+        return true;
     }
 
     /// <summary>Waits until every publish handed to the link has been acknowledged or failed (failures are counted by the link).</summary>

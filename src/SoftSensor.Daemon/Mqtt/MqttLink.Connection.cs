@@ -180,10 +180,13 @@ internal sealed partial class MqttLink
     {
         var b = new MqttClientOptionsBuilder()
             .WithTcpServer(_options.Host, _options.Port)
+            .WithStreamProvider(_streams)
             .WithClientId(_options.ClientId)
             .WithCleanSession(true)
             .WithKeepAlivePeriod(_options.PingInterval * 3)
             .WithTimeout(TimeSpan.FromSeconds(10))
+            // One write per packet instead of header and payload apart: half the send calls under load.
+            .WithoutPacketFragmentation()
             .WithWillTopic(_topics.Status)
             .WithWillPayload(Encoding.UTF8.GetBytes("offline"))
             .WithWillRetain(true)

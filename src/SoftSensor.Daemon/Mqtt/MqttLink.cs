@@ -32,6 +32,7 @@ internal sealed partial class MqttLink : IHostedService, IAsyncDisposable
     private readonly TimeProvider _time;
     private readonly ILogger<MqttLink> _logger;
     private readonly MqttClientFactory _factory = new();
+    private readonly BrokerStreamProvider _streams = new();
     private readonly IMqttClient _client;
     private readonly ConcurrentDictionary<string, MqttMessageHandler> _handlers = new(StringComparer.Ordinal);
     private readonly ConcurrentDictionary<string, byte> _subscribed = new(StringComparer.Ordinal);
@@ -78,6 +79,16 @@ internal sealed partial class MqttLink : IHostedService, IAsyncDisposable
 
     /// <summary>Removes a handler (the subscription stays until the next reconnect; messages are ignored).</summary>
     public void Unsubscribe(string topic) => _handlers.TryRemove(topic, out _);
+
+    /// <summary>
+    /// Holds this connection's writes back (gathered, not sent) until <see cref="ReleaseWritesAsync"/>:
+    /// for a burst of publishes. Nothing that waits for the broker's answer may be awaited meanwhile.
+    /// </summary>
+    public void HoldWrites() => _streams.Current?.Hold();
+
+    /// <summary>Sends the writes held back and lets writes through again.</summary>
+    public ValueTask ReleaseWritesAsync(CancellationToken cancellationToken) =>
+        _streams.Current is { } stream ? stream.ReleaseAsync(cancellationToken) : ValueTask.CompletedTask;
 
     /// <summary>Publishes with QoS 1; false (counted and logged) when offline or the broker did not accept it.</summary>
     public async ValueTask<bool> PublishAsync(string topic, ReadOnlyMemory<byte> payload, bool retain, CancellationToken cancellationToken)
