@@ -17,9 +17,10 @@ internal sealed partial class SqliteStore
         using var conn = OpenReader();
         using var c = conn.CreateCommand();
         c.CommandText = """
-            SELECT frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code FROM estimates
-            WHERE reactor = $r AND ($n IS NULL OR name = $n) AND time_ms BETWEEN $a AND $b
-            ORDER BY time_ms, frame_id LIMIT $l
+            SELECT e.frame_id, e.reactor, e.name, e.time_ms, e.value, e.sigma, e.unit, e.quality, e.status_code
+            FROM frames f JOIN estimates e ON e.frame_id = f.id
+            WHERE f.reactor = $r AND f.time_ms BETWEEN $a AND $b AND ($n IS NULL OR e.name = $n)
+            ORDER BY f.time_ms, f.id LIMIT $l
             """;
         c.Parameters.AddWithValue("$r", reactor);
         c.Parameters.AddWithValue("$n", (object?)name ?? DBNull.Value);
