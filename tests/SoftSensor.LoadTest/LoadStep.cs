@@ -127,6 +127,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         long accepted = await QuiescentAsync(metrics, accepted0 + mapped) - accepted0;
 
         long rejected = await metrics.SumAsync("softsensor_samples_rejected_total");
+        long reconnects = await metrics.SumAsync("softsensor_mqtt_reconnects_total");
         var latencies = probe.Latencies();
         Array.Sort(latencies);
         var lag = publisher.LagMs.ToArray();
@@ -139,6 +140,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         {
             DaemonWithin50MsPercent = within50,
             DaemonP99BucketMs = p99Bound,
+            Reconnects = reconnects,
             SinkBusyPercent = sinks1.ToDictionary(kv => kv.Key, kv => 100 * (kv.Value - sinks0.GetValueOrDefault(kv.Key)) / windowS),
         };
     }

@@ -55,6 +55,14 @@ internal sealed partial class MqttLink
                     return;
                 }
 
+                // A late PINGRESP while messages keep arriving is a busy broker or a full socket, not a dead
+                // link: dropping it would lose everything the broker sends until the resubscription is done.
+                if (_client.IsConnected && _time.GetElapsedTime(Volatile.Read(ref _lastReceived)) < _options.PingInterval * 2)
+                {
+                    MqttLog.PingLate(_logger, _broker);
+                    continue;
+                }
+
                 SetOnline(false);
                 MqttLog.Lost(_logger, _broker);
                 await DropAsync();
@@ -219,6 +227,7 @@ internal sealed partial class MqttLink
 
     private async Task OnMessageAsync(MqttApplicationMessageReceivedEventArgs e)
     {
+        Volatile.Write(ref _lastReceived, _time.GetTimestamp());
         var topic = e.ApplicationMessage.Topic;
         if (_handlers.TryGetValue(topic, out var handler))
         {

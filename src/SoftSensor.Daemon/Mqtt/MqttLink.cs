@@ -40,6 +40,7 @@ internal sealed partial class MqttLink : IHostedService, IAsyncDisposable
     private CancellationTokenSource? _stop;
     private Task? _loop;
     private int _connections;
+    private long _lastReceived;
     private int _disposed;
     private volatile bool _online;
 

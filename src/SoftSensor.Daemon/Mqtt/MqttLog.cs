@@ -31,4 +31,7 @@ internal static partial class MqttLog
 
     [LoggerMessage(1108, LogLevel.Warning, "MQTT subscribe to {Topic} was not granted: {Reason}")]
     public static partial void SubscribeRefused(ILogger logger, string topic, string reason);
+
+    [LoggerMessage(1109, LogLevel.Warning, "MQTT ping to {Broker} not answered in time, but messages are still arriving: link kept")]
+    public static partial void PingLate(ILogger logger, string broker);
 }
