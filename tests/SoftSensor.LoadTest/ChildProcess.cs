@@ -1,7 +1,5 @@
 using System.Diagnostics;
 using System.Globalization;
-using System.Net;
-using System.Net.Sockets;
 
 namespace SoftSensor.LoadTest;
 
@@ -100,30 +98,5 @@ internal sealed class ChildProcess : IAsyncDisposable
         await StopAsync(TimeSpan.FromSeconds(30));
         _process.Dispose();
         await _log.DisposeAsync();
-    }
-
-    public static int FreePort()
-    {
-        using var l = new TcpListener(IPAddress.Loopback, 0);
-        l.Start();
-        return ((IPEndPoint)l.LocalEndpoint).Port;
-    }
-
-    public static async Task WaitListeningAsync(int port, TimeSpan timeout)
-    {
-        var until = DateTime.UtcNow + timeout;
-        while (true)
-        {
-            try
-            {
-                using var c = new TcpClient();
-                await c.ConnectAsync(IPAddress.Loopback, port);
-                return;
-            }
-            catch (SocketException) when (DateTime.UtcNow < until)
-            {
-                await Task.Delay(50);
-            }
-        }
     }
 }

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using SoftSensor.Daemon.Tests.Fixtures;
 using SoftSensor.Simulation;
 using SoftSensor.Simulation.Scenarios;
 
@@ -43,10 +44,10 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
             int port = options.BrokerPort;
             if (port == 0)
             {
-                port = ChildProcess.FreePort();
+                port = FreePort.Next();
                 File.WriteAllText(Path.Combine(dir, "mosquitto.conf"), $"listener {port} 127.0.0.1\nallow_anonymous true\npersistence false\nlog_dest none\nmax_queued_messages 100000\n");
                 broker = ChildProcess.Start("/usr/sbin/mosquitto", ["-c", Path.Combine(dir, "mosquitto.conf")], Path.Combine(dir, "mosquitto.log"));
-                await ChildProcess.WaitListeningAsync(port, TimeSpan.FromSeconds(10));
+                await FreePort.WaitListeningAsync(port, TimeSpan.FromSeconds(10));
             }
 
             return await MeasureAsync(dir, reactors, port, broker, log);
@@ -63,7 +64,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
     private async Task<StepResult> MeasureAsync(string dir, int reactors, int port, ChildProcess? broker, TextWriter log)
     {
 
-        int statusPort = ChildProcess.FreePort();
+        int statusPort = FreePort.Next();
         string config = Path.Combine(dir, "load.json");
         var tags = LoadConfig.Write(config, demoConfig, reactors, port, statusPort, Path.Combine(dir, "store.db"));
         string daemonDll = options.DaemonDll ?? Path.Combine(AppContext.BaseDirectory, "softsensor.dll");
@@ -71,7 +72,7 @@ internal sealed class LoadStep(LoadOptions options, string demoConfig, string sc
         await using var metrics = new DaemonMetricsReader(statusPort);
         await using var probe = new LatencyProbe(port);
         await probe.StartAsync();
-        await ChildProcess.WaitListeningAsync(statusPort, TimeSpan.FromSeconds(300));
+        await FreePort.WaitListeningAsync(statusPort, TimeSpan.FromSeconds(300));
 
         var scenario = ScenarioLoader.Load(scenarioFile);
         await using var publisher = new LoadPublisher(port, reactors, tags, VirtualReactor.Create(scenario, scenario.Seed));
