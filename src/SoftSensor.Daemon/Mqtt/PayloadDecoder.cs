@@ -236,12 +236,22 @@ internal static class PayloadDecoder
 
         // ISO 8601 (the usual form) without making a string: with Z or an offset as given; without an
         // offset (DateTimeKind.Unspecified) as UTC, like the parser below with AssumeUniversal.
+        // Z (the usual form) is read once; only a text with a numeric offset is read again to keep it exact.
         if (e.TryGetDateTime(out var dt))
         {
-            time = dt.Kind == DateTimeKind.Unspecified ? new DateTimeOffset(DateTime.SpecifyKind(dt, DateTimeKind.Utc))
-                : e.TryGetDateTimeOffset(out var withOffset) ? withOffset.ToUniversalTime()
-                : default;
-            return time != default;
+            switch (dt.Kind)
+            {
+                case DateTimeKind.Utc:
+                    time = new DateTimeOffset(dt);
+                    return true;
+                case DateTimeKind.Unspecified:
+                    time = new DateTimeOffset(DateTime.SpecifyKind(dt, DateTimeKind.Utc));
+                    return true;
+                default:
+                    bool ok = e.TryGetDateTimeOffset(out var withOffset);
+                    time = withOffset.ToUniversalTime();
+                    return ok;
+            }
         }
 
         return DateTimeOffset.TryParse(e.GetString(), CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal, out time);
