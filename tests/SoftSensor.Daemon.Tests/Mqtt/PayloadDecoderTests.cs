@@ -23,7 +23,7 @@ public class PayloadDecoderTests
     }
 
     [Theory]
-    // ISO 8601 (ISO 8601-1:2019 §5.4): Z, an offset, fractions, and no offset (read as UTC, not as the machine's local time).
+    // ISO 8601-1:2019 date-time forms (from memory): Z, a time shift, fractions, and no shift (read as UTC, not as the machine's local time: our rule).
     [InlineData("2026-12-01T10:00:00Z", "2026-12-01T10:00:00+00:00")]
     [InlineData("2026-12-01T11:30:00+01:30", "2026-12-01T10:00:00+00:00")]
     [InlineData("2026-12-01T05:00:00.250-05:00", "2026-12-01T10:00:00.250+00:00")]
