@@ -1,6 +1,6 @@
 using Microsoft.Data.Sqlite;
 using SoftSensor.Core.Signals;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Store;
 

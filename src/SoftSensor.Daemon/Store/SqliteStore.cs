@@ -2,7 +2,7 @@ using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Store;
 

@@ -1,6 +1,7 @@
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Store;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Store;
 
