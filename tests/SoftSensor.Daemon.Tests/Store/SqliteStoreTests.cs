@@ -46,25 +46,6 @@ public sealed class SqliteStoreTests : IDisposable
     }
 
     [Fact]
-    public async Task FramesAfter_and_outbox_cursor_give_each_frame_once_in_order()
-    {
-        for (int s = 0; s < 5; s++)
-        {
-            await _store.WriteFrameAsync(Frame("r1", s, s), default);
-        }
-
-        long cursor = await _store.OutboxCursorAsync("tsdb", default);
-        var first = await _store.FramesAfterAsync(cursor, 3, default);
-        await _store.AdvanceOutboxAsync("tsdb", first[^1].Id, default);
-        var rest = await _store.FramesAfterAsync(await _store.OutboxCursorAsync("tsdb", default), 10, default);
-        await _store.AdvanceOutboxAsync("tsdb", 1, default); // never moves back
-
-        Assert.Equal([0.0, 1.0, 2.0, 3.0, 4.0], first.Concat(rest).Select(f => f.Frame.Values[0].Value));
-        Assert.Equal(2, first[0].Frame.Values.Count);
-        Assert.Equal(first[^1].Id, await _store.OutboxCursorAsync("tsdb", default));
-    }
-
-    [Fact]
     public async Task LatestCheckpoint_returns_the_newest_of_the_reactor()
     {
         await _store.WriteCheckpointAsync(new Checkpoint("r1", 10, T0, "{\"x\":1}"), default);
