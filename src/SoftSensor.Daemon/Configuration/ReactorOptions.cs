@@ -38,6 +38,9 @@ internal sealed class ReactorOptions
     /// <summary>Which rates besides OUR and CER enter the elemental balance (used when <see cref="ModelFile"/> is set).</summary>
     public BalanceConfig Balance { get; set; } = new();
 
+    /// <summary>How a historian export of this reactor is read by <c>replay</c> (the timestamp column).</summary>
+    public HistoryOptions History { get; set; } = new();
+
     /// <summary>Batch lifecycle from the plant: fed-batch detection, phase codes, initial conditions of tag-started batches.</summary>
     public ReactorBatchOptions Batches { get; set; } = new();
 }
@@ -107,22 +110,6 @@ internal sealed class TagOptions
 
     /// <summary>How the payload is laid out.</summary>
     public PayloadOptions Payload { get; set; } = new();
-
-    /// <summary>What the cycle does when the tag has no fresh value (a gap in the data).</summary>
-    public GapPolicy Gap { get; set; } = GapPolicy.Hold;
-
-    /// <summary>For <see cref="GapPolicy.Interpolate"/>: the longest gap bridged by a straight line between the values around it.</summary>
-    public TimeSpan InterpolateUpTo { get; set; } = TimeSpan.FromMinutes(5);
-}
-
-/// <summary>What the cycle does with a tag between values.</summary>
-internal enum GapPolicy
-{
-    /// <summary>Hold the last value up to the tag's <c>maxAge</c>, then the tag is stale.</summary>
-    Hold,
-
-    /// <summary>Replay: bridge a gap up to <c>interpolateUpTo</c> linearly between the values around it (live: as hold).</summary>
-    Interpolate,
 }
 
 /// <summary>
@@ -145,12 +132,6 @@ internal sealed class TagDefaults
 
     /// <summary>Atmospheric reference of the gauge pressure tags, kPa.</summary>
     public double? AtmosphereKPa { get; set; }
-
-    /// <summary>Gap policy of every tag that does not set its own.</summary>
-    public GapPolicy? Gap { get; set; }
-
-    /// <summary>Interpolation limit of every tag that does not set its own.</summary>
-    public TimeSpan? InterpolateUpTo { get; set; }
 }
 
 /// <summary>Payload layout of a tag's MQTT messages.</summary>
@@ -180,4 +161,20 @@ internal enum PayloadFormat
 
     /// <summary>The payload is the number as text.</summary>
     Number,
+}
+
+/// <summary>
+/// Section <c>reactors:N:history</c>: the timestamp column of a historian export (the other columns
+/// are the tags, matched by tag name or the tag's <c>column</c>).
+/// </summary>
+internal sealed class HistoryOptions
+{
+    /// <summary>Header of the timestamp column.</summary>
+    public string TimestampColumn { get; set; } = "timestamp";
+
+    /// <summary><c>iso8601</c>, <c>unix-seconds</c>, <c>unix-milliseconds</c>, or a .NET custom date format such as <c>dd.MM.yyyy HH:mm:ss</c>.</summary>
+    public string TimestampFormat { get; set; } = "iso8601";
+
+    /// <summary>IANA time zone of times that carry no offset, e.g. <c>UTC</c>, <c>Europe/Berlin</c>.</summary>
+    public string TimeZone { get; set; } = "UTC";
 }

@@ -109,11 +109,6 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             }
         }
 
-        if (t.Gap == GapPolicy.Interpolate && t.InterpolateUpTo <= TimeSpan.Zero)
-        {
-            errors.Add($"{key}:interpolateUpTo is {t.InterpolateUpTo} (expected a positive duration)");
-        }
-
         if (!double.IsFinite(t.Scale) || t.Scale == 0)
         {
             errors.Add($"{key}:scale is {t.Scale} (expected a finite non-zero number)");

@@ -41,20 +41,12 @@ internal sealed record TagBinding(
                     kv.Value.OpcUaNode)
                 {
                     Column = string.IsNullOrEmpty(kv.Value.Column) ? kv.Key : kv.Value.Column,
-                    Gap = kv.Value.Gap,
-                    InterpolateUpTo = kv.Value.InterpolateUpTo,
                 };
             })
             .ToList();
 
     /// <summary>The historian column holding this tag (replay): its <c>column</c> alias, else the tag name.</summary>
     public string Column { get; init; } = Tag;
-
-    /// <summary>What the replay does in a gap of this tag.</summary>
-    public GapPolicy Gap { get; init; }
-
-    /// <summary>Longest gap bridged by interpolation.</summary>
-    public TimeSpan InterpolateUpTo { get; init; }
 
     /// <summary>The tags that enter the cycle (every role but the batch roles, <see cref="SignalRoles.IsBatchRole"/>).</summary>
     public static IReadOnlyList<TagBinding> Process(IReadOnlyList<TagBinding> bindings) =>
