@@ -60,6 +60,7 @@ internal static class ReplayHost
         {
             clock.Set(t);
             var frame = await pipeline.RunCycleAsync(cancellationToken);
+            await dispatcher.FlushAsync(cancellationToken);
             cycles++;
             switch (frame.Quality)
             {
@@ -71,32 +72,24 @@ internal static class ReplayHost
             Count(causes, board.Get(reactor.Id), frame);
         }
 
-        await dispatcher.StartAsync(cancellationToken);
-        try
+        foreach (var row in source.Read())
         {
-            foreach (var row in source.Read())
+            next ??= row.Time;
+            while (next < row.Time)
             {
-                next ??= row.Time;
-                while (next < row.Time)
-                {
-                    await CycleAt(next.Value);
-                    next = next.Value + reactor.CyclePeriod;
-                }
-
-                foreach (var s in row.Samples)
-                {
-                    pipeline.Accept(s);
-                }
+                await CycleAt(next.Value);
+                next = next.Value + reactor.CyclePeriod;
             }
 
-            if (next is { } last)
+            foreach (var s in row.Samples)
             {
-                await CycleAt(last);
+                pipeline.Accept(s);
             }
         }
-        finally
+
+        if (next is { } last)
         {
-            await dispatcher.StopAsync(CancellationToken.None);
+            await CycleAt(last);
         }
 
         return new ReplayOutcome(source.Rows, source.SkippedRows, source.DroppedCells, source.FirstSkipped, source.Unmapped,
