@@ -66,8 +66,7 @@ internal static class ConfigurationCheck
     }
 
     /// <summary>A path as given when it exists from the working folder, else relative to the configuration's folder.</summary>
-    public static string Resolve(string path, string configFolder) =>
-        Path.IsPathRooted(path) || File.Exists(path) || Directory.Exists(path) ? path : Path.GetFullPath(Path.Combine(configFolder, path));
+    public static string Resolve(string path, string configFolder) => DefinitionPaths.Resolve(path, configFolder);
 
     private static TagLine Tag(string reactorKey, string name, TagOptions t, List<string> problems)
     {
