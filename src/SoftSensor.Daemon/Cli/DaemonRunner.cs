@@ -33,6 +33,11 @@ internal static class DaemonRunner
         {
             return CliOutput.BadInput(error, $"--config: {e.Message}");
         }
+        catch (Exception e) when (ValidationFailures(e) is { Count: > 0 } failures)
+        {
+            // Options resolved while the host is built (the alarm rule files) fail here, not at start.
+            return CliOutput.Problems(error, failures);
+        }
 
         await using (app)
         {

@@ -113,6 +113,27 @@ public sealed class StrictDefinitionTests : IDisposable
     }
 
     [Fact]
+    public async Task A_bad_alarm_rule_file_is_one_line_and_exit_two_from_run_not_a_stack_trace()
+    {
+        string rules = Write("rules.json", """{ "rules": [ { "id": "rq_hi", "kind": "hihg", "source": "rq", "limit": 1.2 } ] }""");
+        string file = Write("alarms.json", Broken
+            .Replace("\"cyclePeriode\"", "\"cyclePeriod\"", StringComparison.Ordinal)
+            .Replace(", \"scal\": 2", "", StringComparison.Ordinal)
+            .Replace(", \"scale\": \"abc\"", "", StringComparison.Ordinal)
+            .Replace(", \"maxAge\": \"abc\"", "", StringComparison.Ordinal)
+            .Replace("\"furlong\"", "\"K\"", StringComparison.Ordinal)
+            .Replace("\n  ]\n}", "\n  ],\n  \"alarms\": { \"ruleFiles\": [ \"rules.json\" ] },\n  \"store\": { \"path\": \"" + Path.Combine(_folder, "s.db").Replace("\\", "/", StringComparison.Ordinal) + "\" },\n  \"status\": { \"url\": \"http://127.0.0.1:0\" }\n}", StringComparison.Ordinal));
+        using var runError = new StringWriter();
+        int code = await DaemonRunner.RunAsync(Settings(file), runError, null, CancellationToken.None);
+
+        Assert.Equal(ExitCodes.BadInput, code);
+        var lines = runError.ToString().Trim().Split('\n');
+        Assert.Single(lines);
+        Assert.Contains("rule 1 ('rq_hi'): kind is 'hihg'", lines[0], StringComparison.Ordinal);
+        _ = rules;
+    }
+
+    [Fact]
     public void Nearest_name_is_found_within_a_third_of_the_key_and_not_beyond()
     {
         Assert.Equal("deadTime", DefinitionSchema.Nearest("deadtim", ["deadTime", "maxAge", "topic"]));
