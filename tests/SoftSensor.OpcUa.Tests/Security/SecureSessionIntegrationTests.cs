@@ -120,7 +120,7 @@ public sealed class SecureSessionIntegrationTests(SecurePeerFixture peer)
         var rejected = Assert.Single(Directory.GetFiles(Path.Combine(pki, "rejected")));
         Assert.Contains(server.Thumbprint, rejected, StringComparison.Ordinal);
 
-        new Pki.PkiStore(pki).Trust(server);
+        new SoftSensor.OpcUa.Pki.PkiStore(pki).Trust(server);
         await using var connection = await UaConnection.OpenAsync(options, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
         Assert.Empty(Directory.GetFiles(Path.Combine(pki, "rejected")));
         Assert.True(File.Exists(Path.Combine(pki, "own", "certs", "softsensor.der")));
