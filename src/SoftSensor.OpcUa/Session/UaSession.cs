@@ -75,7 +75,16 @@ public sealed partial class UaSession
             RequestedSessionTimeoutMs = options.SessionTimeout.TotalMilliseconds,
             MaxResponseMessageSize = options.Channel.Limits.MaxMessageSize,
         };
-        var created = await channel.SendAsync<CreateSessionResponse>(request, null, cancellationToken);
+        CreateSessionResponse created;
+        try
+        {
+            created = await channel.SendAsync<CreateSessionResponse>(request, null, cancellationToken);
+        }
+        catch (ServiceResultException e) when (security.IsNone && (e.Status.Is(StatusCodes.BadSecurityModeRejected) || e.Status.Is(StatusCodes.BadSecurityPolicyRejected)))
+        {
+            throw new ServiceResultException(e.Status, "The server refuses sessions over SecurityPolicy None (it offers secured endpoints only: ask for sign or sign-encrypt, or leave the security choice to the client)", e);
+        }
+
         SessionSignatures.CheckServer(security, created, clientCertificate, clientNonce);
         var session = new UaSession(channel, options, time, logger, created);
         await session.ActivateAsync(channel, cancellationToken);
@@ -149,7 +158,17 @@ public sealed partial class UaSession
             Timestamp = time.GetUtcNow().UtcDateTime,
             RequestHandle = unchecked((uint)Interlocked.Increment(ref requestHandle)),
         };
-        var activated = await channel.SendAsync<ActivateSessionResponse>(request, null, cancellationToken);
+        ActivateSessionResponse activated;
+        try
+        {
+            activated = await channel.SendAsync<ActivateSessionResponse>(request, null, cancellationToken);
+        }
+        catch (ServiceResultException e) when (e.Status.Is(StatusCodes.BadUserAccessDenied) || e.Status.Is(StatusCodes.BadIdentityTokenRejected) || e.Status.Is(StatusCodes.BadIdentityTokenInvalid))
+        {
+            string who = options.Identity is UserNameIdentity user ? $"user '{user.User}' (wrong user name or password, or the user may not log in)" : "an anonymous session (the server wants a user name)";
+            throw new ServiceResultException(e.Status, $"The server refused the login of {who}", e);
+        }
+
         serverNonce = activated.ServerNonce ?? serverNonce;
         Channel = channel;
         Namespaces = await ReadNamespacesAsync(cancellationToken);
