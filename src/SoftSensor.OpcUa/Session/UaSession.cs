@@ -165,7 +165,7 @@ public sealed partial class UaSession
         }
         catch (ServiceResultException e) when (e.Status.Is(StatusCodes.BadUserAccessDenied) || e.Status.Is(StatusCodes.BadIdentityTokenRejected) || e.Status.Is(StatusCodes.BadIdentityTokenInvalid))
         {
-            string who = options.Identity is UserNameIdentity user ? $"user '{user.User}' (wrong user name or password, or the user may not log in)" : "an anonymous session (the server wants a user name)";
+            string who = options.Identity is UserNameIdentity user ? $"user '{user.User}' (user name or password not accepted, or this user may not log in)" : "an anonymous session (the server wants a user name)";
             throw new ServiceResultException(e.Status, $"The server refused the login of {who}", e);
         }
 
