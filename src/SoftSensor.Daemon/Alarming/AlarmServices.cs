@@ -3,6 +3,7 @@ using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
+using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Sinks;
 
 namespace SoftSensor.Daemon.Alarming;
@@ -15,17 +16,14 @@ internal sealed class AlarmOptions
     public List<string> RuleFiles { get; set; } = [];
 
     /// <summary>
-    /// The files named, folders expanded (name order). A relative path that does not exist from the
-    /// working folder is taken beside the configuration file, as <c>check</c> resolves it.
+    /// The files named, folders expanded (name order); a relative path is read beside the
+    /// configuration file (<see cref="DefinitionPaths"/>).
     /// </summary>
     public IReadOnlyList<string> ResolveFiles(string? configFolder = null) =>
         [.. RuleFiles.Select(p => Beside(p, configFolder))
             .SelectMany<string, string>(p => Directory.Exists(p) ? Directory.GetFiles(p, "*.json").Order(StringComparer.Ordinal) : [p])];
 
-    private static string Beside(string path, string? configFolder) =>
-        configFolder is null || Path.IsPathRooted(path) || File.Exists(path) || Directory.Exists(path)
-            ? path
-            : Path.GetFullPath(Path.Combine(configFolder, path));
+    private static string Beside(string path, string? configFolder) => DefinitionPaths.Resolve(path, configFolder);
 }
 
 /// <summary>Checks at start that every rule file reads and every rule is valid (one message listing all).</summary>

@@ -46,6 +46,6 @@ internal sealed class CheckVerb : IVerb
 
         return report.Usable
             ? ExitCodes.Ok
-            : CliOutput.BadInput(error, $"configuration '{file}' is not usable: {report.Problems.Count} problem(s): {string.Join(" | ", report.Problems)}");
+            : CliOutput.Problems(error, report.Problems);
     }
 }

@@ -25,6 +25,17 @@ internal static class CliOutput
     public static double? Finite(double value) => double.IsFinite(value) ? value : null;
 
     /// <summary>Writes a one-line bad-input error to standard error and returns <see cref="ExitCodes.BadInput"/>.</summary>
+    /// <summary>Writes one line per problem on stderr ("error: ..."); returns <see cref="ExitCodes.BadInput"/>.</summary>
+    public static int Problems(TextWriter error, IEnumerable<string> problems)
+    {
+        foreach (var p in problems)
+        {
+            error.WriteLine("error: " + p.ReplaceLineEndings(" "));
+        }
+
+        return ExitCodes.BadInput;
+    }
+
     public static int BadInput(TextWriter error, string message)
     {
         error.WriteLine("error: " + message.ReplaceLineEndings(" | "));

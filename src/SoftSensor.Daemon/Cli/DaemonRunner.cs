@@ -13,6 +13,17 @@ internal static class DaemonRunner
     /// <summary>Builds, starts, runs and stops a daemon; <paramref name="started"/> runs once it is up.</summary>
     public static async Task<int> RunAsync(DaemonHostSettings settings, TextWriter error, Func<WebApplication, CancellationToken, Task>? started, CancellationToken cancellationToken)
     {
+        if (settings.ConfigFile is { } file && !File.Exists(file))
+        {
+            return CliOutput.BadInput(error, $"--config: file '{file}' does not exist (expected a JSON reactor definition)");
+        }
+
+        var problems = DaemonDefinition.Problems(settings);
+        if (problems.Count > 0)
+        {
+            return CliOutput.Problems(error, problems);
+        }
+
         WebApplication app;
         try
         {
@@ -22,6 +33,11 @@ internal static class DaemonRunner
         {
             return CliOutput.BadInput(error, $"--config: {e.Message}");
         }
+        catch (Exception e) when (ValidationFailures(e) is { Count: > 0 } failures)
+        {
+            // Options resolved while the host is built (the alarm rule files) fail here, not at start.
+            return CliOutput.Problems(error, failures);
+        }
 
         await using (app)
         {
@@ -29,9 +45,9 @@ internal static class DaemonRunner
             {
                 await app.StartAsync(cancellationToken);
             }
-            catch (OptionsValidationException e)
+            catch (Exception e) when (ValidationFailures(e) is { Count: > 0 } failures)
             {
-                return CliOutput.BadInput(error, "configuration is invalid: " + e.Message);
+                return CliOutput.Problems(error, failures);
             }
             catch (InvalidOperationException e) when (e.InnerException is FormatException || e.Message.Contains("Failed to convert", StringComparison.Ordinal))
             {
@@ -62,5 +78,29 @@ internal static class DaemonRunner
         }
 
         return ExitCodes.Ok;
+    }
+
+    /// <summary>Every validation failure inside <paramref name="e"/> (several options failing at start arrive as an AggregateException, a rule file failing in a factory as an inner exception).</summary>
+    internal static List<string> ValidationFailures(Exception e)
+    {
+        var failures = new List<string>();
+        void Walk(Exception? x)
+        {
+            switch (x)
+            {
+                case OptionsValidationException v:
+                    failures.AddRange(v.Failures);
+                    break;
+                case AggregateException a:
+                    foreach (var inner in a.InnerExceptions) Walk(inner);
+                    break;
+                case not null:
+                    Walk(x.InnerException);
+                    break;
+            }
+        }
+
+        Walk(e);
+        return failures;
     }
 }

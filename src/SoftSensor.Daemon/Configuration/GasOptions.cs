@@ -10,7 +10,7 @@ internal sealed class GasOptions
     public double MfcReferencePressureKPa { get; set; } = 101.325;
 
     /// <summary>Analyser basis: <c>dry</c> (after a dryer) or <c>wet</c> (saturated at the analyser-cell temperature tag).</summary>
-    public string AnalyserBasis { get; set; } = "dry";
+    public AnalyserBasisKind AnalyserBasis { get; set; } = AnalyserBasisKind.Dry;
 
     /// <summary>Absolute pressure of the analyser cell for the wet basis, kPa; leave out to use the vessel pressure tag.</summary>
     public double AnalyserPressureKPa { get; set; } = double.NaN;
@@ -21,7 +21,7 @@ internal sealed class GasOptions
     /// (<see cref="InletO2Percent"/>, <see cref="InletCo2Percent"/>), or <c>measured</c> (the
     /// InletO2Percent and InletCo2Percent tags).
     /// </summary>
-    public string Inlet { get; set; } = "lines";
+    public InletSetting Inlet { get; set; } = InletSetting.Lines;
 
     /// <summary>CO2 of the air line, % by volume (about 0.042, NOAA global mean 2024, from memory).</summary>
     public double AirCo2Percent { get; set; } = 0.042;
@@ -46,4 +46,27 @@ internal sealed class GasOptions
 
     /// <summary>Mass flow controller accuracy, % of reading.</summary>
     public double FlowAccuracyPercentOfReading { get; set; }
+}
+
+/// <summary>The analyser's basis (section <c>gas:analyserBasis</c>).</summary>
+internal enum AnalyserBasisKind
+{
+    /// <summary>After a dryer: the analyser reads dry gas.</summary>
+    Dry,
+
+    /// <summary>Saturated with water at the analyser-cell temperature tag.</summary>
+    Wet,
+}
+
+/// <summary>Where the inlet composition comes from (section <c>gas:inlet</c>).</summary>
+internal enum InletSetting
+{
+    /// <summary>The flow-weighted mix of the mapped gas lines.</summary>
+    Lines,
+
+    /// <summary>A constant measured composition (gas:inletO2Percent, gas:inletCo2Percent: the analyser's reading of the inlet air).</summary>
+    Fixed,
+
+    /// <summary>The InletO2Percent and InletCo2Percent tags.</summary>
+    Measured,
 }

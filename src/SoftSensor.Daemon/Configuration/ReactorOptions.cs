@@ -20,6 +20,9 @@ internal sealed class ReactorOptions
     /// </summary>
     public string CycleTrigger { get; set; } = "";
 
+    /// <summary>What this reactor's tags share unless a tag says otherwise (above the file's <c>defaults</c>).</summary>
+    public TagDefaults Defaults { get; set; } = new();
+
     /// <summary>Tag map: plant tag name → how to read it and what it means.</summary>
     public Dictionary<string, TagOptions> Tags { get; set; } = new(StringComparer.Ordinal);
 
@@ -34,6 +37,9 @@ internal sealed class ReactorOptions
 
     /// <summary>Which rates besides OUR and CER enter the elemental balance (used when <see cref="ModelFile"/> is set).</summary>
     public BalanceConfig Balance { get; set; } = new();
+
+    /// <summary>How a historian export of this reactor is read by <c>replay</c> (the timestamp column).</summary>
+    public HistoryOptions History { get; set; } = new();
 
     /// <summary>Batch lifecycle from the plant: fed-batch detection, phase codes, initial conditions of tag-started batches.</summary>
     public ReactorBatchOptions Batches { get; set; } = new();
@@ -69,11 +75,23 @@ internal sealed class TagOptions
     /// <summary>What the tag means to the cycle (a <see cref="Core.Signals.SignalRole"/> name).</summary>
     public string Role { get; set; } = "";
 
-    /// <summary>The tag's plant unit (documentation and the status page); the scaled value is in the role's unit.</summary>
+    /// <summary>
+    /// The tag's plant unit, converted into the role's unit by the one table of plant units
+    /// (<see cref="PlantUnits"/>); empty: the value is already in the role's unit.
+    /// </summary>
     public string Unit { get; set; } = "";
 
-    /// <summary>value in the role's unit = raw × Scale + Offset.</summary>
+    /// <summary>
+    /// value in the plant unit = raw × Scale + Offset (what the unit table cannot know: a 4–20 mA
+    /// span, a pump percentage, a broth density); the unit then converts it to the role's unit.
+    /// </summary>
     public double Scale { get; set; } = 1.0;
+
+    /// <summary>Atmospheric reference of a gauge pressure unit (<c>bar(g)</c>, <c>psig</c> ...), kPa absolute; required for those units.</summary>
+    public double AtmosphereKPa { get; set; } = double.NaN;
+
+    /// <summary>The column of a historian export that holds this tag, when it is not the tag's name (replay).</summary>
+    public string Column { get; set; } = "";
 
     /// <summary>See <see cref="Scale"/>.</summary>
     public double Offset { get; set; }
@@ -94,11 +112,33 @@ internal sealed class TagOptions
     public PayloadOptions Payload { get; set; } = new();
 }
 
+/// <summary>
+/// Section <c>defaults</c> (at the file's top level and in each reactor): what tags share. A tag's own
+/// key wins over its reactor's defaults, which win over the file's.
+/// </summary>
+internal sealed class TagDefaults
+{
+    /// <summary>Payload layout of every tag that does not set its own.</summary>
+    public PayloadOptions Payload { get; set; } = new();
+
+    /// <summary>Maximum age of every tag that does not set its own.</summary>
+    public TimeSpan? MaxAge { get; set; }
+
+    /// <summary>Dead time of every tag that does not set its own.</summary>
+    public TimeSpan? DeadTime { get; set; }
+
+    /// <summary>A tag without a topic or OPC UA node arrives on <c>{topicPrefix}/{tag name}</c>.</summary>
+    public string TopicPrefix { get; set; } = "";
+
+    /// <summary>Atmospheric reference of the gauge pressure tags, kPa.</summary>
+    public double? AtmosphereKPa { get; set; }
+}
+
 /// <summary>Payload layout of a tag's MQTT messages.</summary>
 internal sealed class PayloadOptions
 {
     /// <summary><c>json</c> (an object read through the paths below) or <c>number</c> (the payload is the number as text).</summary>
-    public string Format { get; set; } = "json";
+    public PayloadFormat Format { get; set; } = PayloadFormat.Json;
 
     /// <summary>Dotted path of the value, e.g. <c>value</c> or <c>data.v</c>.</summary>
     public string ValuePath { get; set; } = "value";
@@ -111,4 +151,30 @@ internal sealed class PayloadOptions
 
     /// <summary>Dotted path of a numeric OPC UA status code; empty when the gateway sends none.</summary>
     public string StatusCodePath { get; set; } = "statusCode";
+}
+
+/// <summary>How a tag's MQTT payload is written (section <c>payload:format</c>).</summary>
+internal enum PayloadFormat
+{
+    /// <summary>A JSON object read through the value, timestamp, quality and status-code paths.</summary>
+    Json,
+
+    /// <summary>The payload is the number as text.</summary>
+    Number,
+}
+
+/// <summary>
+/// Section <c>reactors:N:history</c>: the timestamp column of a historian export (the other columns
+/// are the tags, matched by tag name or the tag's <c>column</c>).
+/// </summary>
+internal sealed class HistoryOptions
+{
+    /// <summary>Header of the timestamp column.</summary>
+    public string TimestampColumn { get; set; } = "timestamp";
+
+    /// <summary><c>iso8601</c>, <c>unix-seconds</c>, <c>unix-milliseconds</c>, or a .NET custom date format such as <c>dd.MM.yyyy HH:mm:ss</c>.</summary>
+    public string TimestampFormat { get; set; } = "iso8601";
+
+    /// <summary>IANA time zone of times that carry no offset, e.g. <c>UTC</c>, <c>Europe/Berlin</c>.</summary>
+    public string TimeZone { get; set; } = "UTC";
 }

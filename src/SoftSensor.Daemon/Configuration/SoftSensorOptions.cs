@@ -13,6 +13,9 @@ internal sealed class SoftSensorOptions
     /// <summary>Area (building, suite, line) inside the site: second level of the hierarchy.</summary>
     public string Area { get; set; } = "";
 
+    /// <summary>What the tags of every reactor share unless the reactor or the tag says otherwise.</summary>
+    public TagDefaults Defaults { get; set; } = new();
+
     /// <summary>The reactors this daemon serves, one pipeline each.</summary>
     public List<ReactorOptions> Reactors { get; set; } = [];
 

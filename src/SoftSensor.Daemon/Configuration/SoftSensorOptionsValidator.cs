@@ -92,9 +92,21 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
         {
             errors.Add($"{key}:role is '{t.Role}' (expected one of {string.Join(", ", Enum.GetNames<SignalRole>())})");
         }
-        else if (!roles.Add(role))
+        else
         {
-            errors.Add($"{key}:role is '{t.Role}' (expected a role no other tag of this reactor has)");
+            if (!roles.Add(role))
+            {
+                errors.Add($"{key}:role is '{t.Role}' (expected a role no other tag of this reactor has)");
+            }
+
+            if (PlantUnits.Problem(role, t.Unit) is { } unitProblem)
+            {
+                errors.Add($"{key}:unit is {unitProblem}");
+            }
+            else if (PlantUnits.IsGauge(t.Unit) && !double.IsFinite(t.AtmosphereKPa))
+            {
+                errors.Add($"{key}:atmosphereKPa is missing (expected the atmospheric reference in kPa of the gauge pressure unit '{t.Unit}', on the tag or in defaults)");
+            }
         }
 
         if (!double.IsFinite(t.Scale) || t.Scale == 0)
@@ -138,11 +150,11 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:topic is '{t.Topic}' (expected a topic no other tag uses; {topics[t.Topic]} has it)");
         }
 
-        if (t.Payload.Format is not ("json" or "number"))
+        if (!Enum.IsDefined(t.Payload.Format))
         {
             errors.Add($"{key}:payload:format is '{t.Payload.Format}' (expected json or number)");
         }
-        else if (t.Payload.Format == "json" && string.IsNullOrWhiteSpace(t.Payload.ValuePath))
+        else if (t.Payload.Format == PayloadFormat.Json && string.IsNullOrWhiteSpace(t.Payload.ValuePath))
         {
             errors.Add($"{key}:payload:valuePath is empty (expected the dotted path of the value, e.g. value)");
         }
@@ -163,7 +175,7 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:tags has no gas-line flow (expected a tag with role AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin or CarbonDioxideFlowNlPerMin)");
         }
 
-        if (r.Gas.Inlet == "measured" && !(roles.Contains(SignalRole.InletO2Percent) && roles.Contains(SignalRole.InletCo2Percent)))
+        if (r.Gas.Inlet == InletSetting.Measured && !(roles.Contains(SignalRole.InletO2Percent) && roles.Contains(SignalRole.InletCo2Percent)))
         {
             errors.Add($"{key}:gas:inlet is 'measured' (expected tags with roles InletO2Percent and InletCo2Percent)");
         }
@@ -173,7 +185,7 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:gas:liquidVolumeL is not set (expected a volume in L, or a tag with role LiquidVolumeL)");
         }
 
-        if (r.Gas.AnalyserBasis == "wet" && !roles.Contains(SignalRole.AnalyserTemperatureC))
+        if (r.Gas.AnalyserBasis == AnalyserBasisKind.Wet && !roles.Contains(SignalRole.AnalyserTemperatureC))
         {
             errors.Add($"{key}:gas:analyserBasis is 'wet' (expected a tag with role AnalyserTemperatureC)");
         }
@@ -191,12 +203,12 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:mfcReferencePressureKPa is {g.MfcReferencePressureKPa} (expected kPa between 50 and 200, e.g. 101.325)");
         }
 
-        if (g.AnalyserBasis is not ("dry" or "wet"))
+        if (!Enum.IsDefined(g.AnalyserBasis))
         {
             errors.Add($"{key}:analyserBasis is '{g.AnalyserBasis}' (expected dry or wet)");
         }
 
-        if (g.Inlet is not ("lines" or "fixed" or "measured"))
+        if (!Enum.IsDefined(g.Inlet))
         {
             errors.Add($"{key}:inlet is '{g.Inlet}' (expected lines, fixed or measured)");
         }

@@ -17,6 +17,24 @@ internal static class DaemonConfiguration
     /// <summary>The system-wide folder of configuration fragments.</summary>
     public const string SystemFolder = "/etc/softsensor";
 
+    /// <summary>The definition files read, lowest priority first (those that exist).</summary>
+    public static IReadOnlyList<string> Files(DaemonHostSettings settings)
+    {
+        var files = new List<string> { Path.Combine(AppContext.BaseDirectory, "appsettings.json") };
+        if (settings.ConfigFile is { } file)
+        {
+            files.Add(Path.GetFullPath(file));
+        }
+
+        string folder = settings.SystemFolder ?? SystemFolder;
+        if (Directory.Exists(folder))
+        {
+            files.AddRange(Directory.GetFiles(folder, "*.json").OrderBy(f => f, StringComparer.Ordinal).Select(Path.GetFullPath));
+        }
+
+        return files.Where(File.Exists).ToList();
+    }
+
     /// <summary>Adds the layers to <paramref name="configuration"/> after removing the defaults.</summary>
     public static void Apply(IConfigurationManager configuration, DaemonHostSettings settings)
     {
@@ -45,6 +63,12 @@ internal static class DaemonConfiguration
         if (settings.CommandLine.Count > 0)
         {
             configuration.AddCommandLine([.. settings.CommandLine]);
+        }
+
+        var defaults = Configuration.DefaultsOverlay.Keys(configuration);
+        if (defaults.Count > 0)
+        {
+            configuration.AddInMemoryCollection(defaults);
         }
     }
 }

@@ -43,12 +43,12 @@ internal static class PayloadDecoder
             return false;
         }
 
-        if (text && layout.Format == "number")
+        if (text && layout.Format == PayloadFormat.Number)
         {
             return TryText(Encoding.UTF8.GetString(payload).Trim(), "payload", out reading, out error);
         }
 
-        return layout.Format == "number" ? TryNumber(payload, out reading, out error) : TryJson(payload, layout, text, out reading, out error);
+        return layout.Format == PayloadFormat.Number ? TryNumber(payload, out reading, out error) : TryJson(payload, layout, text, out reading, out error);
     }
 
     private const int MaxTextLength = 64;

@@ -99,6 +99,24 @@ internal sealed class FrameDispatcher : BackgroundService
     }
 
     /// <summary>Longest wait at stop for a pipelined sink's writes in flight.</summary>
+    /// <summary>
+    /// Hands every queued frame to the sinks now, on the caller's task: for a dispatcher that is not
+    /// hosted (the replay, whose cycles run as fast as the export reads, one after the other).
+    /// </summary>
+    public async ValueTask FlushAsync(CancellationToken cancellationToken)
+    {
+        var frames = new List<EstimateFrame>();
+        while (_queue.Reader.TryRead(out var item))
+        {
+            frames.Add(item.Frame);
+        }
+
+        if (frames.Count > 0)
+        {
+            await DispatchAsync(frames, cancellationToken);
+        }
+    }
+
     private static readonly TimeSpan DrainTimeout = TimeSpan.FromSeconds(10);
 
     private async Task DispatchAsync(List<EstimateFrame> frames, CancellationToken cancellationToken)

@@ -28,7 +28,7 @@ internal sealed class GasInputs
         lines |= roles.Contains(SignalRole.OxygenFlowNlPerMin) ? InstalledGasLines.Oxygen : 0;
         lines |= roles.Contains(SignalRole.NitrogenFlowNlPerMin) ? InstalledGasLines.Nitrogen : 0;
         lines |= roles.Contains(SignalRole.CarbonDioxideFlowNlPerMin) ? InstalledGasLines.CarbonDioxide : 0;
-        var inlet = _gas.Inlet == "lines" ? InletSource.GasLines : InletSource.Measured;
+        var inlet = _gas.Inlet == InletSetting.Lines ? InletSource.GasLines : InletSource.Measured;
         var balance = GasBalanceSettings.Default with
         {
             Reference = new ReferenceConditions(_gas.MfcReferenceTemperatureK, _gas.MfcReferencePressureKPa),
@@ -38,7 +38,7 @@ internal sealed class GasInputs
         // Staleness is judged per tag by the signal store (its own max age and dead time); the balance's
         // own age check is set wide enough not to repeat it.
         var maxAge = bindings.Count == 0 ? TimeSpan.FromDays(1) : bindings.Max(b => b.MaxAge + b.DeadTime) + TimeSpan.FromDays(1);
-        Settings = new AlignedGasBalanceSettings(balance, lines, inlet, _gas.AirCo2Percent / 100.0, _gas.AnalyserBasis == "wet" ? AnalyserBasis.Saturated : AnalyserBasis.Dry, _gas.AnalyserPressureKPa, maxAge);
+        Settings = new AlignedGasBalanceSettings(balance, lines, inlet, _gas.AirCo2Percent / 100.0, _gas.AnalyserBasis == AnalyserBasisKind.Wet ? AnalyserBasis.Saturated : AnalyserBasis.Dry, _gas.AnalyserPressureKPa, maxAge);
         _fixedVolumeL = roles.Contains(SignalRole.LiquidVolumeL) ? double.NaN : _gas.LiquidVolumeL;
         _used = new bool[SignalRoles.Count];
         foreach (var role in UsedRoles(lines, _gas).Concat(extraRoles ?? []))
@@ -58,7 +58,7 @@ internal sealed class GasInputs
             inputs.Set(SignalRole.LiquidVolumeL, _fixedVolumeL, SampleQuality.Good, inputs.Time);
         }
 
-        if (_gas.Inlet == "fixed")
+        if (_gas.Inlet == InletSetting.Fixed)
         {
             inputs.Set(SignalRole.InletO2Percent, _gas.InletO2Percent, SampleQuality.Good, inputs.Time);
             inputs.Set(SignalRole.InletCo2Percent, _gas.InletCo2Percent, SampleQuality.Good, inputs.Time);
@@ -146,13 +146,13 @@ internal sealed class GasInputs
         yield return SignalRole.OutletCo2Percent;
         yield return SignalRole.LiquidVolumeL;
         yield return SignalRole.AnalyserCalibrating;
-        if (gas.Inlet == "measured")
+        if (gas.Inlet == InletSetting.Measured)
         {
             yield return SignalRole.InletO2Percent;
             yield return SignalRole.InletCo2Percent;
         }
 
-        if (gas.AnalyserBasis == "wet")
+        if (gas.AnalyserBasis == AnalyserBasisKind.Wet)
         {
             yield return SignalRole.AnalyserTemperatureC;
             yield return SignalRole.PressureKPa;

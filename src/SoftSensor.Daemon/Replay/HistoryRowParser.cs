@@ -1,5 +1,6 @@
 using System.Globalization;
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Configuration;
 
 namespace SoftSensor.Daemon.Replay;
 
@@ -95,7 +96,7 @@ internal sealed class HistoryRowParser
                 errors.Add($"history.columns[{i}].role '{c.Role}' is mapped twice; expected each role at most once");
             }
 
-            if (!PlantUnits.TryMap(roles[i], c.Unit, out double f, out double o))
+            if (PlantUnits.Problem(roles[i], c.Unit) is not null)
             {
                 errors.Add($"history.columns[{i}].unit is '{c.Unit}' for role {c.Role}; expected one of {PlantUnits.AcceptedFor(roles[i])}");
             }
@@ -106,6 +107,7 @@ internal sealed class HistoryRowParser
             }
 
             // role = f × (scale × cell + offset) + o
+            var (f, o) = PlantUnits.Problem(roles[i], c.Unit) is null ? PlantUnits.Map(roles[i], c.Unit) : (double.NaN, double.NaN);
             factor[i] = f * c.Scale;
             offset[i] = (f * c.Offset) + o;
         }

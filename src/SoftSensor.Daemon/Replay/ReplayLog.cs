@@ -22,4 +22,10 @@ internal static partial class ReplayLog
 
     [LoggerMessage(EventId = 5106, Level = LogLevel.Warning, Message = "{File} line {Line}: offline sample skipped ({Reason})")]
     public static partial void SampleRowSkipped(ILogger logger, string file, long line, string reason);
+
+    [LoggerMessage(EventId = 5107, Level = LogLevel.Warning, Message = "{File} line {Line}: row skipped ({Reason})")]
+    public static partial void RowSkippedAlone(ILogger logger, string file, long line, string reason);
+
+    [LoggerMessage(EventId = 5108, Level = LogLevel.Warning, Message = "{File} line {Line}: cell of tag {Tag} is '{Text}' (expected a finite number); that cell is dropped")]
+    public static partial void CellDropped(ILogger logger, string file, long line, string tag, string text);
 }

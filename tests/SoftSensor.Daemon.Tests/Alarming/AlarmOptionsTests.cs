@@ -3,8 +3,8 @@ using SoftSensor.Daemon.Alarming;
 namespace SoftSensor.Daemon.Tests.Alarming;
 
 /// <summary>
-/// <c>alarms:ruleFiles</c> resolves as <c>check</c> does: a relative path that does not exist from the
-/// working folder is taken beside the configuration file (the layout the shipped configurations use).
+/// <c>alarms:ruleFiles</c> resolves by the definition's one rule for relative paths, as <c>check</c>
+/// does: a relative path is taken beside the configuration file (the layout the shipped configurations use).
 /// </summary>
 public sealed class AlarmOptionsTests : IDisposable
 {

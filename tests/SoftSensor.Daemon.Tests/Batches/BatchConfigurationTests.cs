@@ -81,7 +81,7 @@ public class BatchConfigurationTests
     [InlineData("  B 7 ", "number", "B 7")]
     public void TryDecode_text_tag_keeps_a_string_or_a_number_as_text(string payload, string format, string expected)
     {
-        bool ok = PayloadDecoder.TryDecode(new ReadOnlySequence<byte>(Encoding.UTF8.GetBytes(payload)), new PayloadOptions { Format = format }, out var r, out var error, text: true);
+        bool ok = PayloadDecoder.TryDecode(new ReadOnlySequence<byte>(Encoding.UTF8.GetBytes(payload)), new PayloadOptions { Format = Enum.Parse<PayloadFormat>(format, ignoreCase: true) }, out var r, out var error, text: true);
         Assert.True(ok, error);
         Assert.Equal(expected, r.Text);
         Assert.Equal(SampleQuality.Good, r.Quality);

@@ -12,8 +12,12 @@ public class ShippedConfigurationTests
     public void Validate_shipped_configuration_file_succeeds(string file)
     {
         string path = DemoFiles.Find(file) ?? throw new FileNotFoundException(file);
+        var settings = new SoftSensor.Daemon.Hosting.DaemonHostSettings { ConfigFile = path, SystemFolder = Path.Combine(Path.GetTempPath(), "softsensor-shipped-no-system-folder") };
+        Assert.Empty(SoftSensor.Daemon.Hosting.DaemonDefinition.Problems(settings));
+        var manager = new ConfigurationManager();
+        SoftSensor.Daemon.Hosting.DaemonConfiguration.Apply(manager, settings);
         var o = new SoftSensorOptions();
-        new ConfigurationBuilder().AddJsonFile(path).Build().Bind(o);
+        manager.Bind(o);
 
         var result = new SoftSensorOptionsValidator().Validate(null, o);
 

@@ -29,7 +29,6 @@ public class SoftSensorOptionsValidatorTests
         keys["reactors:0:cyclePeriod"] = "00:00:00.01";
         keys["reactors:0:tags:fic101:role"] = "AirFlow";
         keys["reactors:0:tags:qi202:topic"] = "plant/#";
-        keys["reactors:0:gas:analyserBasis"] = "humid";
         keys["status:url"] = "ftp://x";
 
         var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
@@ -38,7 +37,6 @@ public class SoftSensorOptionsValidatorTests
         Assert.Equal(
             "site is 'Pilot Plant' (expected lowercase letters, digits, '-' or '_'); "
             + "reactors:0:cyclePeriod is 00:00:00.0100000 (expected between 00:00:00.1 and 01:00:00); "
-            + "reactors:0:gas:analyserBasis is 'humid' (expected dry or wet); "
             + $"reactors:0:tags:fic101:role is 'AirFlow' (expected one of {string.Join(", ", Enum.GetNames<SoftSensor.Core.Signals.SignalRole>())}); "
             + "reactors:0:tags:qi202:topic is 'plant/#' (expected an exact MQTT topic without wildcards); "
             + "reactors:0:tags has no gas-line flow (expected a tag with role AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin or CarbonDioxideFlowNlPerMin); "

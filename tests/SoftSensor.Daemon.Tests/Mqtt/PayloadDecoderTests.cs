@@ -64,7 +64,7 @@ public class PayloadDecoderTests
     [Fact]
     public void TryDecode_plain_number_without_timestamp_is_good()
     {
-        bool ok = PayloadDecoder.TryDecode(Bytes(" 20.946\n"), new PayloadOptions { Format = "number" }, out var r, out _);
+        bool ok = PayloadDecoder.TryDecode(Bytes(" 20.946\n"), new PayloadOptions { Format = PayloadFormat.Number }, out var r, out _);
         Assert.True(ok);
         Assert.Equal(20.946, r.Value);
         Assert.Null(r.SourceTime);
@@ -80,7 +80,7 @@ public class PayloadDecoderTests
     [InlineData("number", "", "empty payload")]
     public void TryDecode_malformed_payload_fails_with_reason(string format, string payload, string expected)
     {
-        bool ok = PayloadDecoder.TryDecode(Bytes(payload), new PayloadOptions { Format = format }, out _, out var error);
+        bool ok = PayloadDecoder.TryDecode(Bytes(payload), new PayloadOptions { Format = Enum.Parse<PayloadFormat>(format, ignoreCase: true) }, out _, out var error);
         Assert.False(ok);
         Assert.Equal(expected, error);
     }

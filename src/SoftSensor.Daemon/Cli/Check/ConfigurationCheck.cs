@@ -16,7 +16,12 @@ internal static class ConfigurationCheck
     public static CheckReport Run(DaemonHostSettings settings)
     {
         string file = settings.ConfigFile ?? "";
-        var problems = new List<string>();
+        var problems = new List<string>(DaemonDefinition.Problems(settings));
+        if (problems.Count > 0)
+        {
+            return new CheckReport(file, false, problems, [], []);
+        }
+
         var manager = new ConfigurationManager();
         var options = new SoftSensorOptions();
         try
@@ -61,29 +66,17 @@ internal static class ConfigurationCheck
     }
 
     /// <summary>A path as given when it exists from the working folder, else relative to the configuration's folder.</summary>
-    public static string Resolve(string path, string configFolder) =>
-        Path.IsPathRooted(path) || File.Exists(path) || Directory.Exists(path) ? path : Path.GetFullPath(Path.Combine(configFolder, path));
+    public static string Resolve(string path, string configFolder) => DefinitionPaths.Resolve(path, configFolder);
 
     private static TagLine Tag(string reactorKey, string name, TagOptions t, List<string> problems)
     {
         bool known = Enum.TryParse<SignalRole>(t.Role, ignoreCase: true, out var role) && Enum.IsDefined(role) && !int.TryParse(t.Role, out _);
         string roleUnit = known ? SignalRoles.UnitOf(role) : "?";
         bool converts = true;
-        if (known && t.Unit.Trim().Length > 0)
+        if (known && PlantUnits.Problem(role, t.Unit) is not null)
         {
-            string? dimension = UnitDimensions.Of(t.Unit);
-            string expected = UnitDimensions.OfRole(role);
-            string key = $"{reactorKey}:tags:{name}:unit";
-            if (dimension is null)
-            {
-                converts = false;
-                problems.Add($"{key} is '{t.Unit}' (expected a unit of {expected} that scales to {roleUnit}, the unit of role {role}: {string.Join(", ", UnitDimensions.UnitsOf(expected))})");
-            }
-            else if (dimension != expected)
-            {
-                converts = false;
-                problems.Add($"{key} is '{t.Unit}', a unit of {dimension} (expected a unit of {expected}: role {role} is in {roleUnit})");
-            }
+            // The validator reports it (reactors:N:tags:T:unit).
+            converts = false;
         }
 
         return new TagLine(name, t.Role, t.Unit, roleUnit, t.Scale, t.Offset, t.DeadTime, t.Topic, converts);
