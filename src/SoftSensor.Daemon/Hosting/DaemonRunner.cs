@@ -22,6 +22,11 @@ internal static class DaemonRunner
         {
             return CliOutput.BadInput(error, $"--config: {e.Message}");
         }
+        catch (OptionsValidationException e)
+        {
+            // Services resolved while the host is built (the metrics exporter and the store) validate the options already.
+            return CliOutput.BadInput(error, "configuration is invalid: " + e.Message);
+        }
 
         await using (app)
         {
