@@ -41,7 +41,7 @@ internal static class BatchForm
 
     private static IResult Page(BatchBook book, SoftSensorOptions o, string message)
     {
-        var h = new StringBuilder(Status.PageChrome.Top("Batches", "batches"));
+        var h = new StringBuilder(Report.PageChrome.Top("Batches", "batches"));
         h.Append("<h2>Batches</h2>");
         if (message.Length > 0)
         {
@@ -80,6 +80,6 @@ internal static class BatchForm
             h.Append("</section>");
         }
 
-        return Results.Content(h.Append(Status.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
+        return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
     }
 }

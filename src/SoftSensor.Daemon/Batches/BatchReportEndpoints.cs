@@ -18,7 +18,7 @@ internal static partial class BatchReportEndpoints
     {
         app.MapGet("/reports", (BatchReports reports) =>
         {
-            var h = new StringBuilder(Status.PageChrome.Top("Batch reports", "reports"));
+            var h = new StringBuilder(Report.PageChrome.Top("Batch reports", "reports"));
             h.Append("<h2>Batch reports</h2>");
             var list = reports.List();
             if (list.Count == 0)
@@ -38,7 +38,7 @@ internal static partial class BatchReportEndpoints
                 h.Append("</ul></section>");
             }
 
-            return Results.Content(h.Append(Status.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
+            return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
         });
         app.MapGet("/reports/{reactor}/{batch}/{file}", (string reactor, string batch, string file, BatchReports reports) =>
         {

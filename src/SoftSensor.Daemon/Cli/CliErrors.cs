@@ -19,36 +19,25 @@ internal static class CliErrors
         }
 
         var parts = new List<string>();
-        bool unrecognised = false;
+        bool unrecognised = false, firstUnknownIsVerb = false;
         foreach (var e in parse.Errors)
         {
             string? unknown = Quoted(e.Message);
             bool isUnmatched = unknown is not null && parse.UnmatchedTokens.Contains(unknown);
-            if (unrecognised && isUnmatched)
+            if (isUnmatched && (firstUnknownIsVerb || (unrecognised && !unknown!.StartsWith('-'))))
             {
-                continue;   // the words after the first unknown one only follow from it
+                continue;   // after an unknown verb every word, after an unknown flag its value, only follows from it
             }
 
-            unrecognised |= isUnmatched;
-            string hint = "";
-            if (unknown is not null && parse.UnmatchedTokens.Contains(unknown))
+            if (isUnmatched && !unrecognised)
             {
-                var command = parse.CommandResult.Command;
-                bool isOption = unknown.StartsWith('-');
-                var names = isOption
-                    ? command.Options.SelectMany(o => o.Aliases.Prepend(o.Name))
-                    : command.Subcommands.Select(c => c.Name);
-                string word = isOption ? unknown.Split('=')[0] : unknown;
-                if (Nearest(word, names) is { } near)
-                {
-                    hint = $" (did you mean '{near}'?)";
-                }
-                else if (!isOption && command.Subcommands.Count > 0)
-                {
-                    hint = $" (expected one of: {string.Join(", ", command.Subcommands.Select(c => c.Name).Order(StringComparer.Ordinal))})";
-                }
+                firstUnknownIsVerb = !unknown!.StartsWith('-') && parse.CommandResult.Command.Subcommands.Count > 0;
+                unrecognised = true;
+                parts.Add(e.Message.TrimEnd('.') + Hint(parse, unknown));
+                continue;
             }
 
+            string hint = isUnmatched ? Hint(parse, unknown!) : "";
             parts.Add(e.Message.TrimEnd('.') + hint);
         }
 
@@ -59,6 +48,22 @@ internal static class CliErrors
         }
 
         return string.Join("; ", parts);
+    }
+
+    private static string Hint(ParseResult parse, string unknown)
+    {
+        var command = parse.CommandResult.Command;
+        bool isOption = unknown.StartsWith('-');
+        var names = isOption ? command.Options.SelectMany(o => o.Aliases.Prepend(o.Name)) : command.Subcommands.Select(c => c.Name);
+        string word = isOption ? unknown.Split('=')[0] : unknown;
+        if (Nearest(word, names) is { } near)
+        {
+            return $" (did you mean '{near}'?)";
+        }
+
+        return !isOption && command.Subcommands.Count > 0
+            ? $" (expected one of: {string.Join(", ", command.Subcommands.Select(c => c.Name).Order(StringComparer.Ordinal))})"
+            : "";
     }
 
     /// <summary>The candidate nearest to <paramref name="word"/> within a third of its length (at least 1), or null.</summary>

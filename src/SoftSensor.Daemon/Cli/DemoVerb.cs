@@ -21,7 +21,7 @@ internal sealed class DemoVerb : IVerb
         var config = new Option<string?>("--config") { Description = "Run this reactor definition against the virtual reactor instead of the demo's own (each MQTT tag is fed the signal of its role)" };
         var scenario = new Option<string?>("--scenario") { Description = "Scenario of the virtual reactor (default: the demo's glycerol scenario)" };
         var command = new Command("demo", "Run the demo: embedded broker, virtual reactor in accelerated time, the daemon and its status page") { speed, duration, data, config, scenario };
-        var influx = new Timeseries.InfluxShortcutOptions();
+        var influx = new InfluxShortcutOptions();
         influx.AddTo(command);
         command.SetAction((parse, ct) =>
         {

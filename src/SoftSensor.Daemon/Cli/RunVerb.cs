@@ -21,7 +21,7 @@ internal sealed class RunVerb : IVerb
         {
             config,
         };
-        var influx = new Timeseries.InfluxShortcutOptions();
+        var influx = new InfluxShortcutOptions();
         influx.AddTo(command);
         command.TreatUnmatchedTokensAsErrors = false;
         command.SetAction(async (parse, ct) =>

@@ -72,7 +72,7 @@ internal static class SampleForm
     private static IResult Page(SampleBook book, SoftSensorOptions o, string message)
     {
         var ci = CultureInfo.InvariantCulture;
-        var h = new StringBuilder(Status.PageChrome.Top("Lab samples", "samples"));
+        var h = new StringBuilder(Report.PageChrome.Top("Lab samples", "samples"));
         h.Append("<h2>Offline samples and removals</h2>");
         if (message.Length > 0)
         {
@@ -101,7 +101,7 @@ internal static class SampleForm
             h.Append("</table></section>");
         }
 
-        return Results.Content(h.Append(Status.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
+        return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
     }
 
     private static string E(string? s) => WebUtility.HtmlEncode(s ?? "");

@@ -1,4 +1,5 @@
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Contracts;
 using SoftSensor.Daemon.Mqtt;
 using SoftSensor.Daemon.Pipeline;
 

@@ -21,8 +21,8 @@ internal static class StatusPage
             ?? throw new InvalidOperationException("embedded resource SoftSensor.Daemon.Status.StatusPage.html is missing from the build");
         using var r = new StreamReader(s);
         return r.ReadToEnd()
-            .Replace("/*STYLE*/", PageChrome.Style, StringComparison.Ordinal)
-            .Replace("<!--NAV-->", PageChrome.Nav("status"), StringComparison.Ordinal)
-            .Replace("<!--CAUTION-->", PageChrome.Caution, StringComparison.Ordinal);
+            .Replace("/*STYLE*/", Report.PageChrome.Style, StringComparison.Ordinal)
+            .Replace("<!--NAV-->", Report.PageChrome.Nav("status"), StringComparison.Ordinal)
+            .Replace("<!--CAUTION-->", Report.PageChrome.Caution, StringComparison.Ordinal);
     }
 }

@@ -1,6 +1,8 @@
 using SoftSensor.Core.Signals;
-using SoftSensor.Daemon.Demo;
+using SoftSensor.Daemon.Cli;
+using SoftSensor.Daemon.Contracts;
 using SoftSensor.Daemon.Pipeline;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.Tests.Demo;
 
@@ -12,7 +14,7 @@ public sealed class CycleConsoleTests
     private static EstimateValue V(string name, double value, string unit, SampleQuality q = SampleQuality.Good, uint code = 0) => new(name, value, unit, double.NaN, q, code);
 
     private static InputHealth Input(string tag, InputState state, SampleQuality q, double age = 1) =>
-        new(tag, SignalRole.OutletO2Percent, 20.5, T, age, state, q, q == SampleQuality.Good ? 0u : StatusCodes.Of(q));
+        new(tag, SignalRole.OutletO2Percent, 20.5, T, age, state, q, q == SampleQuality.Good ? 0u : q == SampleQuality.Bad ? StatusCodes.Bad : StatusCodes.Uncertain);
 
     [Fact]
     public void Header_names_each_column_with_its_unit_and_a_good_line_carries_numbers_only()

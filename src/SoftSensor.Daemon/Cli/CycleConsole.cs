@@ -1,9 +1,11 @@
 using System.Globalization;
 using System.Text;
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Contracts;
 using SoftSensor.Daemon.Pipeline;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
-namespace SoftSensor.Daemon.Demo;
+namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
 /// The demo's console: one header line with the units, then one line per cycle with the main
@@ -100,20 +102,10 @@ internal static class CycleConsole
         return reasons.Count == 0 ? "no estimate yet" : string.Join("; ", reasons);
     }
 
-    /// <summary>The name of a status code the daemon uses (OPC UA Part 8 §7.3.2), else its hex value.</summary>
-    public static string StatusText(uint code) => code switch
-    {
-        StatusCodes.BadNoCommunication => "BadNoCommunication",
-        StatusCodes.BadWaitingForInitialData => "BadWaitingForInitialData",
-        StatusCodes.BadConfigurationError => "BadConfigurationError",
-        StatusCodes.BadOutOfService => "BadOutOfService: analyser calibrating",
-        StatusCodes.UncertainLastUsableValue => "UncertainLastUsableValue",
-        StatusCodes.UncertainInitialValue => "UncertainInitialValue",
-        StatusCodes.UncertainSensorNotAccurate => "UncertainSensorNotAccurate",
-        StatusCodes.UncertainEngineeringUnitsExceeded => "UncertainEngineeringUnitsExceeded",
-        StatusCodes.UncertainSubNormal => "UncertainSubNormal",
-        _ => "status 0x" + code.ToString("X8", CultureInfo.InvariantCulture),
-    };
+    /// <summary>The name of a status code (OPC UA Part 8 §7.3.2), else its hex value.</summary>
+    public static string StatusText(uint code) =>
+        code == StatusCodes.BadOutOfService ? "BadOutOfService: analyser calibrating"
+        : StatusCodes.NameOf(code) ?? "status 0x" + code.ToString("X8", CultureInfo.InvariantCulture);
 
     private static EstimateValue? Find(EstimateFrame? frame, string name)
     {

@@ -1,6 +1,6 @@
 using System.Net;
 
-namespace SoftSensor.Daemon.Status;
+namespace SoftSensor.Daemon.Report;
 
 /// <summary>
 /// What every page of the status server shares: the head with one stylesheet (inline: no external

@@ -1,14 +1,14 @@
 using System.Globalization;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
-using SoftSensor.Daemon.Cli;
 using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Demo;
 using SoftSensor.Daemon.Hosting;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Simulation;
 using SoftSensor.Simulation.Scenarios;
 
-namespace SoftSensor.Daemon.Demo;
+namespace SoftSensor.Daemon.Cli;
 
 /// <summary>What <c>softsensor demo</c> was asked for, checked (full paths).</summary>
 internal sealed record DemoRequest(double Speed, TimeSpan? For, string DataDir, string? Config, string? Scenario)
