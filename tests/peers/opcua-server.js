@@ -10,6 +10,10 @@
 //   OPCUA_PLANT_TAGS         comma-separated tag names: writable Double variables under Objects/Plant
 //                            (node id s=Plant.<name>), BadWaitingForInitialData until a client writes
 //                            them (value, status and source timestamp as written); no timer touches them
+//   OPCUA_SECURE_PKI         when set: secure-only endpoints (Basic256Sha256, Aes128_Sha256_RsaOaep and
+//                            Aes256_Sha256_RsaPss, each Sign and SignAndEncrypt; no None endpoint, no anonymous
+//                            sessions), the server's own PKI (certificate created on first start) in this folder;
+//                            client certificates are accepted unless OPCUA_REJECT_CLIENTS=1
 // Prints "listening PORT" on stdout once the endpoint accepts connections; stops on SIGTERM/SIGINT.
 "use strict";
 const opcua = require("node-opcua");
@@ -22,15 +26,34 @@ const plantTags = (process.env.OPCUA_PLANT_TAGS || "").split(",").filter((t) => 
 const user = process.env.OPCUA_USER || "";
 const password = process.env.OPCUA_PASSWORD || "";
 const namespaceUri = "urn:softsensor:peer:reactor";
+const securePki = process.env.OPCUA_SECURE_PKI || "";
 
 async function main() {
+  const security = {
+    securityModes: [opcua.MessageSecurityMode.None],
+    securityPolicies: [opcua.SecurityPolicy.None],
+    allowAnonymous: true,
+  };
+  if (securePki !== "") {
+    const accept = process.env.OPCUA_REJECT_CLIENTS !== "1";
+    const serverCertificateManager = new opcua.OPCUACertificateManager({ rootFolder: securePki + "/server", automaticallyAcceptUnknownCertificate: accept });
+    const userCertificateManager = new opcua.OPCUACertificateManager({ rootFolder: securePki + "/user", automaticallyAcceptUnknownCertificate: accept });
+    await serverCertificateManager.initialize();
+    await userCertificateManager.initialize();
+    Object.assign(security, {
+      securityModes: [opcua.MessageSecurityMode.Sign, opcua.MessageSecurityMode.SignAndEncrypt],
+      securityPolicies: [opcua.SecurityPolicy.Basic256Sha256, opcua.SecurityPolicy.Aes128_Sha256_RsaOaep, opcua.SecurityPolicy.Aes256_Sha256_RsaPss],
+      allowAnonymous: false,
+      serverCertificateManager,
+      userCertificateManager,
+      alternateHostname: ["127.0.0.1"],
+    });
+  }
   const server = new opcua.OPCUAServer({
     port,
     host: "127.0.0.1",
     resourcePath: "/softsensor",
-    securityModes: [opcua.MessageSecurityMode.None],
-    securityPolicies: [opcua.SecurityPolicy.None],
-    allowAnonymous: true,
+    ...security,
     defaultSecureTokenLifetime: tokenLifetimeMs,
     maxConnectionsPerEndpoint: 100,
     serverCapabilities: { maxSessions: 100 },
@@ -116,7 +139,7 @@ async function main() {
 
   await server.start();
 
-  if (user !== "") {
+  if (user !== "" && securePki === "") {
     // node-opcua advertises no clear-text user-name policy on a None endpoint: add one.
     for (const endpoint of server.endpoints) {
       for (const description of endpoint.endpointDescriptions()) {

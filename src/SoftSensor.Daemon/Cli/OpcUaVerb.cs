@@ -1,5 +1,6 @@
 using System.CommandLine;
 using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Cli.OpcUa;
 using SoftSensor.OpcUa.Encoding;
 using SoftSensor.OpcUa.Services;
 using SoftSensor.OpcUa.Session;
@@ -8,12 +9,15 @@ using SoftSensor.OpcUa.Transport;
 namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
-/// <c>softsensor opcua browse --endpoint URL [--path P] [--json]</c>: lists the children of a node
+/// <c>softsensor opcua browse --endpoint URL [--path P] [--json] [--security none|sign|sign-encrypt]
+/// [--policy NAME] [--pki DIR] [--user NAME]</c>: lists the children of a node
 /// of an OPC UA server (browse name, node id as <c>nsu=...;s=...</c>, node class, data type, value)
 /// so that an engineer can build the tag map. The path is slash-separated browse names from the
 /// root, e.g. <c>Objects/Reactor1</c>; without it the Objects folder is listed. Exit codes: 0 listed;
 /// 1 the server cannot be reached or refused (one stderr line naming the endpoint); 2 bad input
-/// (a malformed endpoint URL, a path that does not exist, a missing password).
+/// (a malformed endpoint URL, a path that does not exist, a missing password, an unknown or
+/// deprecated policy). The security used goes to stderr in one line. <c>opcua trust</c>: see
+/// <see cref="OpcUaTrustCommand"/>.
 /// </summary>
 internal sealed class OpcUaVerb : IVerb
 {
@@ -24,15 +28,23 @@ internal sealed class OpcUaVerb : IVerb
         var json = new Option<bool>("--json") { Description = "Write one JSON document instead of a table" };
         var user = new Option<string?>("--user") { Description = "User name (the password is read from the environment variable SOFTSENSOR_OPCUA_PASSWORD)" };
         var browse = new Command("browse", "List the children of a node: browse name, node id, node class, data type, value.") { endpoint, path, json, user };
-        browse.SetAction((parse, ct) => BrowseAsync(new BrowseRequest(parse.GetValue(endpoint)!, parse.GetValue(path)!, parse.GetValue(json), parse.GetValue(user)), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, ct));
-        return new Command("opcua", "Talk to an OPC UA server (SecurityPolicy None only, for now).") { browse };
+        var security = new OpcUaSecurityFlags();
+        security.AddTo(browse);
+        browse.SetAction((parse, ct) =>
+        {
+            var (settings, problem) = security.Read(parse);
+            return problem is not null
+                ? Task.FromResult(CliOutput.BadInput(parse.InvocationConfiguration.Error, problem))
+                : BrowseAsync(new BrowseRequest(parse.GetValue(endpoint)!, parse.GetValue(path)!, parse.GetValue(json), parse.GetValue(user), settings!), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, ct);
+        });
+        return new Command("opcua", "Talk to an OPC UA server: browse its nodes, trust its certificate.") { browse, OpcUaTrustCommand.Build() };
     }
 
-    private sealed record BrowseRequest(string EndpointUrl, string Path, bool Json, string? User);
+    private sealed record BrowseRequest(string EndpointUrl, string Path, bool Json, string? User, SecuritySettings Security);
 
     private static async Task<int> BrowseAsync(BrowseRequest request, TextWriter output, TextWriter error, CancellationToken cancellationToken)
     {
-        var (endpointUrl, path, json, user) = request;
+        var (endpointUrl, path, json, user, security) = request;
         try
         {
             EndpointAddress.Parse(endpointUrl);
@@ -58,7 +70,9 @@ internal sealed class OpcUaVerb : IVerb
         var logger = logs.CreateLogger("opcua");
         try
         {
-            await using var connection = await UaConnection.OpenAsync(new SessionOptions { EndpointUrl = endpointUrl, Identity = identity }, TimeProvider.System, logger, cancellationToken);
+            await using var connection = await UaConnection.OpenAsync(new SessionOptions { EndpointUrl = endpointUrl, Identity = identity, Security = security }, TimeProvider.System, logger, cancellationToken);
+            string chosen = security.Mode == SecurityChoice.Auto && security.Policy is null ? " (the most secure endpoint both sides support)" : string.Empty;
+            await error.WriteLineAsync($"security: {connection.Channel.Security.Describe()}{chosen}");
             var target = await BrowsePathResolver.ResolveAsync(connection.Session, path, cancellationToken);
             if (!target.IsFound)
             {

@@ -6,8 +6,17 @@ namespace SoftSensor.Daemon.Configuration;
 /// </summary>
 internal sealed class OpcUaOptions
 {
-    /// <summary>Endpoint URL, <c>opc.tcp://host:port[/path]</c> (SecurityPolicy None only, for now).</summary>
+    /// <summary>Endpoint URL, <c>opc.tcp://host:port[/path]</c>.</summary>
     public string Endpoint { get; set; } = "";
+
+    /// <summary>Message security: <c>none</c>, <c>sign</c>, <c>sign-encrypt</c>; empty: the most secure endpoint both sides support (logged).</summary>
+    public string Security { get; set; } = "";
+
+    /// <summary>Security policy (Basic256Sha256, Aes128_Sha256_RsaOaep, Aes256_Sha256_RsaPss); empty: the most secure both support.</summary>
+    public string Policy { get; set; } = "";
+
+    /// <summary>PKI folder (own/, trusted/, issuers/, rejected/); empty: softsensor/opcua-pki under the service user's local application data.</summary>
+    public string Pki { get; set; } = "";
 
     /// <summary>User name; empty for anonymous. The password is read from <see cref="PasswordVariable"/>.</summary>
     public string User { get; set; } = "";

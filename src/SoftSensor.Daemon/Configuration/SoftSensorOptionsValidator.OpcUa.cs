@@ -1,3 +1,6 @@
+using SoftSensor.OpcUa.SecureChannel.Security;
+using SoftSensor.OpcUa.Services;
+using SoftSensor.OpcUa.Session;
 using SoftSensor.OpcUa.Subscriptions;
 using SoftSensor.OpcUa.Transport;
 
@@ -19,6 +22,28 @@ internal sealed partial class SoftSensorOptionsValidator
             catch (FormatException)
             {
                 errors.Add($"opcUa:endpoint is '{o.Endpoint}' (expected opc.tcp://host[:port][/path])");
+            }
+        }
+
+        var mode = SecuritySettings.ParseMode(o.Security);
+        if (mode is null)
+        {
+            errors.Add($"opcUa:security is '{o.Security}' (expected none, sign or sign-encrypt; empty for the most secure endpoint both sides support)");
+        }
+
+        if (!string.IsNullOrWhiteSpace(o.Policy))
+        {
+            try
+            {
+                var policy = SecurityPolicy.Find(o.Policy.Trim());
+                if (policy.IsNone != (mode == SecurityChoice.None) && mode is not (null or SecurityChoice.Auto))
+                {
+                    errors.Add($"opcUa:policy is '{o.Policy}' with opcUa:security '{o.Security}' (expected policy None with security none, and a secured policy with sign or sign-encrypt)");
+                }
+            }
+            catch (ServiceResultException e)
+            {
+                errors.Add($"opcUa:policy is '{o.Policy}' ({e.Message})");
             }
         }
 

@@ -16,9 +16,17 @@ internal static class OpcUaClientFactory
             : UserIdentity.UserName(options.User, Environment.GetEnvironmentVariable(options.PasswordVariable) ?? string.Empty);
         var client = new ClientOptions
         {
-            Session = new SessionOptions { EndpointUrl = options.Endpoint, Identity = identity, SessionName = "softsensor-daemon" },
+            Session = new SessionOptions { EndpointUrl = options.Endpoint, Identity = identity, SessionName = "softsensor-daemon", Security = Security(options) },
             Subscription = new SubscriptionSettings { PublishingInterval = options.PublishingInterval },
         };
         return new UaSubscriptionClient(client, nodes, onChange, time, logger);
     }
+
+    /// <summary>The security asked for by keys security, policy and pki (already validated).</summary>
+    public static SecuritySettings Security(OpcUaOptions options) => new()
+    {
+        Mode = SecuritySettings.ParseMode(options.Security) ?? SecurityChoice.Auto,
+        Policy = string.IsNullOrWhiteSpace(options.Policy) ? null : options.Policy.Trim(),
+        PkiDirectory = string.IsNullOrWhiteSpace(options.Pki) ? null : options.Pki,
+    };
 }

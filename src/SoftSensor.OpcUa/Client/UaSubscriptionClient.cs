@@ -121,7 +121,8 @@ public sealed partial class UaSubscriptionClient(ClientOptions options, IReadOnl
 
     private async Task ConnectAsync(CancellationToken cancellationToken)
     {
-        var newChannel = await UaSecureChannel.OpenAsync(options.Session.EndpointUrl, options.Session.Channel, time, logger, cancellationToken);
+        var security = await EndpointSelector.ResolveAsync(options.Session, time, logger, cancellationToken);
+        var newChannel = await UaSecureChannel.OpenAsync(options.Session.EndpointUrl, options.Session.Channel, security, time, logger, cancellationToken);
         channel = newChannel;
         Counters = Counters with { Connects = Counters.Connects + 1 };
         resolvedWrites.Clear();

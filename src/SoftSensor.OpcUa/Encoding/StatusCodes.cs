@@ -78,6 +78,19 @@ public static class StatusCodes
     public const uint BadContinuationPointInvalid = 0x804A0000;
     public const uint BadMaxConnectionsReached = 0x80B70000;
     public const uint BadConnectionClosed = 0x80AE0000;
+    public const uint BadCertificateInvalid = 0x80120000;
+    public const uint BadCertificateTimeInvalid = 0x80140000;
+    public const uint BadCertificateHostNameInvalid = 0x80160000;
+    public const uint BadCertificateUriInvalid = 0x80170000;
+    public const uint BadCertificateUseNotAllowed = 0x80180000;
+    public const uint BadCertificateUntrusted = 0x801A0000;
+    public const uint BadCertificateRevocationUnknown = 0x801B0000;
+    public const uint BadCertificateRevoked = 0x801D0000;
+    public const uint BadCertificateIssuerRevoked = 0x801E0000;
+    public const uint BadNonceInvalid = 0x80240000;
+    public const uint BadSecurityModeRejected = 0x80540000;
+    public const uint BadSecurityPolicyRejected = 0x80550000;
+    public const uint BadApplicationSignatureInvalid = 0x80580000;
 
     private static readonly FrozenDictionary<uint, string> Names = typeof(StatusCodes)
         .GetFields(System.Reflection.BindingFlags.Public | System.Reflection.BindingFlags.Static)

@@ -8,8 +8,8 @@ internal static partial class ChannelLog
     [LoggerMessage(EventId = 4100, Level = LogLevel.Warning, Message = "OPC UA channel to {Endpoint} uses SecurityPolicy None: traffic is neither signed nor encrypted")]
     public static partial void SecurityNone(ILogger logger, string endpoint);
 
-    [LoggerMessage(EventId = 4101, Level = LogLevel.Information, Message = "OPC UA channel {ChannelId} open to {Endpoint}, token {TokenId}, lifetime {LifetimeMs} ms")]
-    public static partial void Opened(ILogger logger, uint channelId, string endpoint, uint tokenId, uint lifetimeMs);
+    [LoggerMessage(EventId = 4101, Level = LogLevel.Information, Message = "OPC UA channel {ChannelId} open to {Endpoint}, token {TokenId}, lifetime {LifetimeMs} ms, security {Security}")]
+    public static partial void Opened(ILogger logger, uint channelId, string endpoint, uint tokenId, uint lifetimeMs, string security);
 
     [LoggerMessage(EventId = 4102, Level = LogLevel.Debug, Message = "OPC UA channel {ChannelId} renewed: token {TokenId}, lifetime {LifetimeMs} ms")]
     public static partial void Renewed(ILogger logger, uint channelId, uint tokenId, uint lifetimeMs);

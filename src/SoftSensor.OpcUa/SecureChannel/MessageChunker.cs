@@ -1,4 +1,5 @@
 using SoftSensor.OpcUa.Encoding;
+using SoftSensor.OpcUa.SecureChannel.Security;
 using SoftSensor.OpcUa.Services;
 using SoftSensor.OpcUa.Transport;
 
@@ -8,6 +9,7 @@ namespace SoftSensor.OpcUa.SecureChannel;
 /// Splits an outgoing message body into chunks that fit the peer's receive buffer (Part 6
 /// §6.7.2.2): every chunk but the last is 'C', the last 'F'. Refuses bodies beyond the peer's
 /// MaxMessageSize or MaxChunkCount (0: no limit) with BadRequestTooLarge before sending anything.
+/// Each chunk is sealed (signed, padded, encrypted) by the given <see cref="ChunkProtection"/>.
 /// </summary>
 public static class MessageChunker
 {
@@ -19,12 +21,24 @@ public static class MessageChunker
         ReadOnlySpan<byte> body,
         uint chunkSize,
         TransportLimits remote,
-        SequenceNumbers sequence)
+        SequenceNumbers sequence) =>
+        Build(messageType, writeSecurityHeader, requestId, body, chunkSize, remote, sequence, ChunkProtection.None);
+
+    public static List<byte[]> Build(
+        uint messageType,
+        Action<UaBinaryWriter> writeSecurityHeader,
+        uint requestId,
+        ReadOnlySpan<byte> body,
+        uint chunkSize,
+        TransportLimits remote,
+        SequenceNumbers sequence,
+        ChunkProtection protection)
     {
         var probe = new UaBinaryWriter(128);
         writeSecurityHeader(probe);
-        int overhead = FrameHeader.Size + probe.Length + 8;
-        int room = (int)chunkSize - overhead;
+        int securityEnd = FrameHeader.Size + probe.Length;
+        int overhead = securityEnd + 8;
+        int room = protection.MaxBodySize((int)chunkSize - securityEnd);
         if (room <= 0)
         {
             throw new ServiceResultException(new StatusCode(StatusCodes.BadTcpMessageTooLarge), $"Chunk size {chunkSize} leaves no room for a body after {overhead} header bytes.");
@@ -49,7 +63,7 @@ public static class MessageChunker
             w.WriteUInt32(requestId);
             w.WriteRaw(part);
             FrameHeader.PatchSize(w);
-            chunks.Add(w.ToArray());
+            chunks.Add(protection.Seal(w.WrittenSpan, securityEnd));
         }
 
         return chunks;

@@ -11,12 +11,15 @@ namespace SoftSensor.OpcUa.SecureChannel;
 /// </summary>
 public readonly record struct ChunkHeaders(uint ChannelId, string? SecurityPolicyUri, uint TokenId, uint SequenceNumber, uint RequestId)
 {
-    public static void WriteAsymmetric(UaBinaryWriter w, uint channelId)
+    public static void WriteAsymmetric(UaBinaryWriter w, uint channelId) => WriteAsymmetric(w, channelId, SecurityPolicies.None, null, null);
+
+    /// <summary>The asymmetric header of a secured OPN: the client's certificate and the SHA-1 thumbprint of the server's.</summary>
+    public static void WriteAsymmetric(UaBinaryWriter w, uint channelId, string policyUri, byte[]? senderCertificate, byte[]? receiverThumbprint)
     {
         w.WriteUInt32(channelId);
-        w.WriteString(SecurityPolicies.None);
-        w.WriteByteString(null); // SenderCertificate
-        w.WriteByteString(null); // ReceiverCertificateThumbprint
+        w.WriteString(policyUri);
+        w.WriteByteString(senderCertificate);
+        w.WriteByteString(receiverThumbprint);
     }
 
     public static void WriteSymmetric(UaBinaryWriter w, uint channelId, uint tokenId)

@@ -5,13 +5,16 @@ using SoftSensor.OpcUa.Transport;
 
 namespace SoftSensor.OpcUa.SecureChannel;
 
-/// <summary>The reading half of the channel: frames → chunks → messages → waiting requests.</summary>
+/// <summary>
+/// The reading half of the channel: frames → checked chunks (<see cref="Security.InboundChunks"/>:
+/// channel, token, signature, decryption, padding, sequence number) → messages → waiting requests.
+/// A chunk that fails a check closes the channel with that check's status code.
+/// </summary>
 public sealed partial class UaSecureChannel
 {
     private async Task ReceiveLoopAsync(CancellationToken cancellationToken)
     {
         var assembler = new ChunkAssembler(options.Limits.MaxMessageSize, options.Limits.MaxChunkCount);
-        uint? lastSequence = null;
         try
         {
             while (!cancellationToken.IsCancellationRequested)
@@ -25,18 +28,21 @@ public sealed partial class UaSecureChannel
                         return;
                     case MessageTypes.OpenChannel:
                     case MessageTypes.Message:
-                        var reader = new UaBinaryReader(frame.Body);
-                        var headers = ChunkHeaders.Read(reader, frame.Header.MessageType == MessageTypes.OpenChannel);
-                        if (!CheckChunk(headers, frame.Header.MessageType, lastSequence))
+                        ChunkHeaders headers;
+                        ReadOnlyMemory<byte> body;
+                        try
                         {
+                            (headers, body) = inbound.Read(frame);
+                        }
+                        catch (ServiceResultException e)
+                        {
+                            Fault(e.Status, e.Message);
                             return;
                         }
 
-                        lastSequence = headers.SequenceNumber;
-                        var body = frame.Body[reader.Position..];
                         if (assembler.Add(headers.RequestId, frame.Header.ChunkType, body) is { } message)
                         {
-                            Dispatch(message);
+                            Dispatch(message, frame.Header.MessageType);
                         }
 
                         break;
@@ -60,30 +66,7 @@ public sealed partial class UaSecureChannel
         }
     }
 
-    private bool CheckChunk(ChunkHeaders headers, uint messageType, uint? lastSequence)
-    {
-        if (token is { } current && headers.ChannelId != current.ChannelId)
-        {
-            Fault(new StatusCode(StatusCodes.BadSecureChannelIdInvalid), $"chunk for channel {headers.ChannelId}, this is {current.ChannelId}");
-            return false;
-        }
-
-        if (messageType == MessageTypes.Message && token is not null && headers.TokenId != token.TokenId && headers.TokenId != previousToken?.TokenId)
-        {
-            Fault(new StatusCode(StatusCodes.BadSecureChannelTokenUnknown), $"chunk with token {headers.TokenId}, current {token.TokenId}");
-            return false;
-        }
-
-        if (!SequenceNumbers.IsValidSuccessor(lastSequence, headers.SequenceNumber))
-        {
-            Fault(new StatusCode(StatusCodes.BadSequenceNumberInvalid), $"sequence number {headers.SequenceNumber} after {lastSequence}");
-            return false;
-        }
-
-        return true;
-    }
-
-    private void Dispatch(AssembledMessage message)
+    private void Dispatch(AssembledMessage message, uint messageType)
     {
         if (message.IsFailure)
         {
@@ -101,6 +84,20 @@ public sealed partial class UaSecureChannel
             ChannelLog.UndecodableResponse(logger, message.RequestId, e.Message);
             pending.Fail(message.RequestId, new ServiceResultException(new StatusCode(StatusCodes.BadDecodingError), $"Response could not be decoded: {e.Message}", e));
             return;
+        }
+
+        if (messageType == MessageTypes.OpenChannel && response is OpenSecureChannelResponse open && open.Header.ServiceResult.IsGood)
+        {
+            try
+            {
+                InstallToken(open);
+            }
+            catch (ServiceResultException e)
+            {
+                pending.Fail(message.RequestId, e);
+                Fault(e.Status, e.Message);
+                return;
+            }
         }
 
         if (!pending.Complete(message.RequestId, response) && logger.IsEnabled(LogLevel.Debug))

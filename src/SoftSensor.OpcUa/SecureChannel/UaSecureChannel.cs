@@ -1,14 +1,16 @@
 using Microsoft.Extensions.Logging;
 using SoftSensor.OpcUa.Encoding;
+using SoftSensor.OpcUa.SecureChannel.Security;
 using SoftSensor.OpcUa.Services;
 using SoftSensor.OpcUa.Transport;
 
 namespace SoftSensor.OpcUa.SecureChannel;
 
 /// <summary>
-/// A secure channel with SecurityPolicy None over one opc.tcp connection (Part 4 §5.5, Part 6
-/// §6.7): OpenSecureChannel Issue, then requests as MSG chunks correlated by RequestId, token
-/// renewal at 75 % of the revised lifetime, CloseSecureChannel. Threading contract: any number
+/// A secure channel over one opc.tcp connection (Part 4 §5.5, Part 6 §6.7): OpenSecureChannel
+/// Issue (signed and encrypted with the certificates' keys unless the policy is None), then
+/// requests as MSG chunks correlated by RequestId and protected with the keys derived from both
+/// nonces, token renewal at 75 % of the revised lifetime, CloseSecureChannel. Threading contract: any number
 /// of callers may send concurrently; one background task reads. When the connection fails every
 /// waiting request fails with the channel's status and <see cref="Completion"/> finishes.
 /// </summary>
@@ -26,17 +28,25 @@ public sealed partial class UaSecureChannel : IAsyncDisposable
     private readonly TaskCompletionSource<StatusCode> completion = new(TaskCreationOptions.RunContinuationsAsynchronously);
     private Task? receiveLoop;
     private int disposed;
+    private readonly ChannelSecurity security;
+    private readonly InboundChunks inbound;
+    private volatile SendState? sending;
     private ChannelSecurityToken? token;
-    private ChannelSecurityToken? previousToken;
+    private ChunkProtection? asymmetricOut;
 
-    private UaSecureChannel(UaTcpConnection connection, string endpointUrl, ChannelOptions options, TimeProvider time, ILogger logger)
+    private UaSecureChannel(UaTcpConnection connection, string endpointUrl, ChannelOptions options, ChannelSecurity security, TimeProvider time, ILogger logger)
     {
         this.connection = connection;
         this.endpointUrl = endpointUrl;
         this.options = options;
+        this.security = security;
         this.time = time;
         this.logger = logger;
+        inbound = new InboundChunks(security);
     }
+
+    /// <summary>The policy, mode and certificates of this channel.</summary>
+    public ChannelSecurity Security => security;
 
     /// <summary>The current security token (channel id, token id, revised lifetime).</summary>
     public ChannelSecurityToken Token => token ?? throw new InvalidOperationException("The channel is not open.");
@@ -54,17 +64,26 @@ public sealed partial class UaSecureChannel : IAsyncDisposable
     public TransportLimits ServerLimits => connection.Remote;
 
     /// <summary>Connects, exchanges Hello/Acknowledge and opens the channel (Issue).</summary>
-    public static async Task<UaSecureChannel> OpenAsync(string endpointUrl, ChannelOptions options, TimeProvider time, ILogger logger, CancellationToken cancellationToken)
+    public static Task<UaSecureChannel> OpenAsync(string endpointUrl, ChannelOptions options, TimeProvider time, ILogger logger, CancellationToken cancellationToken) =>
+        OpenAsync(endpointUrl, options, ChannelSecurity.None, time, logger, cancellationToken);
+
+    /// <summary>Connects and opens the channel with the given security (the server certificate already validated).</summary>
+    public static async Task<UaSecureChannel> OpenAsync(string endpointUrl, ChannelOptions options, ChannelSecurity security, TimeProvider time, ILogger logger, CancellationToken cancellationToken)
     {
         var address = EndpointAddress.Parse(endpointUrl);
+        security.CheckKeySizes();
         var connection = await UaTcpConnection.ConnectAsync(address, options.Limits, options.ConnectTimeout, cancellationToken);
-        var channel = new UaSecureChannel(connection, endpointUrl, options, time, logger);
+        var channel = new UaSecureChannel(connection, endpointUrl, options, security, time, logger);
         try
         {
             channel.receiveLoop = Task.Run(() => channel.ReceiveLoopAsync(channel.lifetime.Token), CancellationToken.None);
-            ChannelLog.SecurityNone(logger, endpointUrl);
+            if (security.IsNone)
+            {
+                ChannelLog.SecurityNone(logger, endpointUrl);
+            }
+
             await channel.OpenTokenAsync(SecurityTokenRequestType.Issue, cancellationToken);
-            ChannelLog.Opened(logger, channel.Token.ChannelId, endpointUrl, channel.Token.TokenId, channel.Token.RevisedLifetimeMs);
+            ChannelLog.Opened(logger, channel.Token.ChannelId, endpointUrl, channel.Token.TokenId, channel.Token.RevisedLifetimeMs, security.Describe());
             return channel;
         }
         catch
@@ -168,12 +187,25 @@ public sealed partial class UaSecureChannel : IAsyncDisposable
         await sendLock.WaitAsync(cancellationToken);
         try
         {
-            uint channelId = token?.ChannelId ?? 0;
-            uint tokenId = token?.TokenId ?? 0;
-            Action<UaBinaryWriter> securityHeader = messageType == MessageTypes.OpenChannel
-                ? w => ChunkHeaders.WriteAsymmetric(w, channelId)
-                : w => ChunkHeaders.WriteSymmetric(w, channelId, tokenId);
-            var chunks = MessageChunker.Build(messageType, securityHeader, requestId, body.WrittenSpan, chunkSize, connection.Remote, sendSequence);
+            var state = sending;
+            uint channelId = state?.Token.ChannelId ?? 0;
+            uint tokenId = state?.Token.TokenId ?? 0;
+            Action<UaBinaryWriter> securityHeader;
+            ChunkProtection protection;
+            if (messageType == MessageTypes.OpenChannel)
+            {
+                securityHeader = security.IsNone
+                    ? w => ChunkHeaders.WriteAsymmetric(w, channelId)
+                    : w => ChunkHeaders.WriteAsymmetric(w, channelId, security.Policy.Uri, security.Client.RawData, security.Server.GetCertHash());
+                protection = security.IsNone ? ChunkProtection.None : asymmetricOut ??= ChunkProtection.AsymmetricOutgoing(security.Policy, security.ClientKey(), security.ServerKey());
+            }
+            else
+            {
+                securityHeader = w => ChunkHeaders.WriteSymmetric(w, channelId, tokenId);
+                protection = state?.Outgoing ?? ChunkProtection.None;
+            }
+
+            var chunks = MessageChunker.Build(messageType, securityHeader, requestId, body.WrittenSpan, chunkSize, connection.Remote, sendSequence, protection);
             foreach (var chunk in chunks)
             {
                 await connection.WriteAsync(chunk, cancellationToken);
@@ -207,4 +239,7 @@ public sealed partial class UaSecureChannel : IAsyncDisposable
         pending.FailAll(() => new ServiceResultException(status, $"The secure channel failed: {reason}"));
         lifetime.Cancel();
     }
+
+    /// <summary>The token messages go out under, with the protection of its client keys.</summary>
+    private sealed record SendState(ChannelSecurityToken Token, ChunkProtection Outgoing);
 }

@@ -84,5 +84,9 @@ public sealed record EndpointDescription
 /// <summary>The security policy URIs of Part 7 this client knows.</summary>
 public static class SecurityPolicies
 {
-    public const string None = "http://opcfoundation.org/UA/SecurityPolicy#None";
+    public const string Prefix = "http://opcfoundation.org/UA/SecurityPolicy#";
+    public const string None = Prefix + "None";
+    public const string Basic256Sha256 = Prefix + "Basic256Sha256";
+    public const string Aes128Sha256RsaOaep = Prefix + "Aes128_Sha256_RsaOaep";
+    public const string Aes256Sha256RsaPss = Prefix + "Aes256_Sha256_RsaPss";
 }

@@ -2,7 +2,7 @@ using SoftSensor.OpcUa.Encoding;
 
 namespace SoftSensor.OpcUa.Services;
 
-/// <summary>SignatureData (Part 4 §7.37): empty under SecurityPolicy None.</summary>
+/// <summary>SignatureData (Part 4 §7.37): the algorithm URI and the signature; empty under SecurityPolicy None.</summary>
 public sealed record SignatureData(string? Algorithm, byte[]? Signature)
 {
     public static SignatureData Empty { get; } = new(null, null);
@@ -68,7 +68,13 @@ public sealed record CreateSessionResponse : IServiceResponse
 
     public byte[]? ServerNonce { get; init; }
 
+    /// <summary>The server's certificate (or chain), as sent: the client signs it in ActivateSession.</summary>
+    public byte[]? ServerCertificate { get; init; }
+
     public EndpointDescription[] ServerEndpoints { get; init; } = [];
+
+    /// <summary>The server's signature over the client's certificate and nonce (Part 4 §5.6.2.2).</summary>
+    public SignatureData ServerSignature { get; init; } = SignatureData.Empty;
 
     public uint MaxRequestMessageSize { get; init; }
 
@@ -79,10 +85,10 @@ public sealed record CreateSessionResponse : IServiceResponse
         var token = r.ReadNodeId();
         double timeout = r.ReadDouble();
         var nonce = r.ReadByteString();
-        r.ReadByteString(); // ServerCertificate
+        var certificate = r.ReadByteString();
         var endpoints = r.ReadArrayOrEmpty(EndpointDescription.Decode);
         r.ReadArray(static x => (x.ReadByteString(), x.ReadByteString())); // ServerSoftwareCertificates
-        SignatureData.Decode(r); // ServerSignature
+        var signature = SignatureData.Decode(r);
         uint maxRequest = r.ReadUInt32();
         return new CreateSessionResponse
         {
@@ -91,7 +97,9 @@ public sealed record CreateSessionResponse : IServiceResponse
             AuthenticationToken = token,
             RevisedSessionTimeoutMs = timeout,
             ServerNonce = nonce,
+            ServerCertificate = certificate,
             ServerEndpoints = endpoints,
+            ServerSignature = signature,
             MaxRequestMessageSize = maxRequest,
         };
     }
@@ -108,10 +116,13 @@ public sealed record ActivateSessionRequest : IServiceRequest
 
     public string?[] LocaleIds { get; init; } = [];
 
+    /// <summary>The client's signature over the server's certificate and its last nonce (empty under None).</summary>
+    public SignatureData ClientSignature { get; init; } = SignatureData.Empty;
+
     public void Encode(UaBinaryWriter w)
     {
         Header.Encode(w);
-        SignatureData.Empty.Encode(w); // ClientSignature
+        ClientSignature.Encode(w);
         w.WriteInt32(-1); // ClientSoftwareCertificates
         w.WriteArray(LocaleIds, static (x, s) => x.WriteString(s));
         w.WriteExtensionObject(UserIdentityToken);

@@ -20,4 +20,7 @@ public sealed record SessionOptions
     public UserIdentity Identity { get; init; } = UserIdentity.Anonymous;
 
     public ChannelOptions Channel { get; init; } = new();
+
+    /// <summary>Message security and PKI; the library's default is SecurityPolicy None without discovery.</summary>
+    public SecuritySettings Security { get; init; } = SecuritySettings.None;
 }

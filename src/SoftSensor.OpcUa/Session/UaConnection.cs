@@ -21,7 +21,8 @@ public sealed class UaConnection : IAsyncDisposable
 
     public static async Task<UaConnection> OpenAsync(SessionOptions options, TimeProvider time, ILogger logger, CancellationToken cancellationToken)
     {
-        var channel = await UaSecureChannel.OpenAsync(options.EndpointUrl, options.Channel, time, logger, cancellationToken);
+        var security = await EndpointSelector.ResolveAsync(options, time, logger, cancellationToken);
+        var channel = await UaSecureChannel.OpenAsync(options.EndpointUrl, options.Channel, security, time, logger, cancellationToken);
         try
         {
             var session = await UaSession.CreateAsync(channel, options, time, logger, cancellationToken);

@@ -8,7 +8,9 @@ namespace SoftSensor.OpcUa.Session;
 /// <summary>
 /// A session on a secure channel (Part 4 §5.6): CreateSession, ActivateSession with the
 /// configured identity, the NamespaceArray, and the services (in the partial files beside this
-/// one). The session outlives its channel: after a reconnect <see cref="ReactivateAsync"/> binds it
+/// one). On a secured channel the server proves it holds its certificate's key by signing the
+/// client's certificate and nonce (checked here), and the client signs the server's certificate
+/// and latest nonce in every ActivateSession (Part 4 §5.6.2, §5.6.3). The session outlives its channel: after a reconnect <see cref="ReactivateAsync"/> binds it
 /// to a new channel (Part 4 §6.7). Threading contract: services may be called concurrently.
 /// </summary>
 public sealed partial class UaSession
@@ -28,7 +30,12 @@ public sealed partial class UaSession
         AuthenticationToken = created.AuthenticationToken;
         RevisedTimeout = TimeSpan.FromMilliseconds(created.RevisedSessionTimeoutMs);
         ServerEndpoints = created.ServerEndpoints;
+        serverCertificate = created.ServerCertificate;
+        serverNonce = created.ServerNonce;
     }
+
+    private readonly byte[]? serverCertificate;
+    private byte[]? serverNonce;
 
     /// <summary>The channel the session currently talks on.</summary>
     public UaSecureChannel Channel { get; private set; }
@@ -48,6 +55,9 @@ public sealed partial class UaSession
     /// <summary>Creates and activates a session on an open channel, then reads the NamespaceArray.</summary>
     public static async Task<UaSession> CreateAsync(UaSecureChannel channel, SessionOptions options, TimeProvider time, ILogger logger, CancellationToken cancellationToken)
     {
+        var security = channel.Security;
+        var clientNonce = System.Security.Cryptography.RandomNumberGenerator.GetBytes(32);
+        var clientCertificate = security.IsNone ? null : security.ClientCertificate!.RawData;
         var request = new CreateSessionRequest
         {
             Header = new RequestHeader { Timestamp = time.GetUtcNow().UtcDateTime, RequestHandle = 1 },
@@ -60,11 +70,22 @@ public sealed partial class UaSession
             },
             EndpointUrl = options.EndpointUrl,
             SessionName = options.SessionName,
-            ClientNonce = System.Security.Cryptography.RandomNumberGenerator.GetBytes(32),
+            ClientNonce = clientNonce,
+            ClientCertificate = clientCertificate,
             RequestedSessionTimeoutMs = options.SessionTimeout.TotalMilliseconds,
             MaxResponseMessageSize = options.Channel.Limits.MaxMessageSize,
         };
-        var created = await channel.SendAsync<CreateSessionResponse>(request, null, cancellationToken);
+        CreateSessionResponse created;
+        try
+        {
+            created = await channel.SendAsync<CreateSessionResponse>(request, null, cancellationToken);
+        }
+        catch (ServiceResultException e) when (security.IsNone && (e.Status.Is(StatusCodes.BadSecurityModeRejected) || e.Status.Is(StatusCodes.BadSecurityPolicyRejected)))
+        {
+            throw new ServiceResultException(e.Status, "The server refuses sessions over SecurityPolicy None (it offers secured endpoints only: ask for sign or sign-encrypt, or leave the security choice to the client)", e);
+        }
+
+        SessionSignatures.CheckServer(security, created, clientCertificate, clientNonce);
         var session = new UaSession(channel, options, time, logger, created);
         await session.ActivateAsync(channel, cancellationToken);
         SessionLog.Created(logger, session.SessionId.ToString(), options.EndpointUrl, IdentityTokens.Describe(options.Identity), session.RevisedTimeout.TotalMilliseconds);
@@ -124,15 +145,31 @@ public sealed partial class UaSession
 
     private async Task ActivateAsync(UaSecureChannel channel, CancellationToken cancellationToken)
     {
-        var token = IdentityTokens.Build(options.Identity, ServerEndpoints, logger);
-        var request = new ActivateSessionRequest { UserIdentityToken = token, LocaleIds = ["en"] };
+        var token = IdentityTokens.Build(options.Identity, ServerEndpoints, channel.Security, serverCertificate, serverNonce, logger);
+        var request = new ActivateSessionRequest
+        {
+            UserIdentityToken = token,
+            LocaleIds = ["en"],
+            ClientSignature = SessionSignatures.Client(channel.Security, serverCertificate, serverNonce),
+        };
         request.Header = new RequestHeader
         {
             AuthenticationToken = AuthenticationToken,
             Timestamp = time.GetUtcNow().UtcDateTime,
             RequestHandle = unchecked((uint)Interlocked.Increment(ref requestHandle)),
         };
-        await channel.SendAsync<ActivateSessionResponse>(request, null, cancellationToken);
+        ActivateSessionResponse activated;
+        try
+        {
+            activated = await channel.SendAsync<ActivateSessionResponse>(request, null, cancellationToken);
+        }
+        catch (ServiceResultException e) when (e.Status.Is(StatusCodes.BadUserAccessDenied) || e.Status.Is(StatusCodes.BadIdentityTokenRejected) || e.Status.Is(StatusCodes.BadIdentityTokenInvalid))
+        {
+            string who = options.Identity is UserNameIdentity user ? $"user '{user.User}' (user name or password not accepted, or this user may not log in)" : "an anonymous session (the server wants a user name)";
+            throw new ServiceResultException(e.Status, $"The server refused the login of {who}", e);
+        }
+
+        serverNonce = activated.ServerNonce ?? serverNonce;
         Channel = channel;
         Namespaces = await ReadNamespacesAsync(cancellationToken);
     }

@@ -24,8 +24,11 @@ namespace SoftSensor.Daemon.Tests.OpcUa;
 /// reactor's tag values (invented demo scenario) are written each step, with the same source
 /// timestamps, to both: by MQTT publish and by OPC UA Write. The daemon's clock is a fake one,
 /// advanced one cycle period per step only after both reactors took in all of that step's tags,
-/// so both cycles see identical inputs and the estimates must agree cycle by cycle.
+/// so both cycles see identical inputs and the estimates must agree cycle by cycle. The second
+/// test does the same against a server with secure endpoints only (issue 18): the daemon's OPC UA
+/// source signs and encrypts (Basic256Sha256 SignAndEncrypt) and logs in with a user name.
 /// </summary>
+[Collection(SecureOpcUaPeerCollection.Name)]
 public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsyncLifetime
 {
     private static readonly TimeSpan Period = TimeSpan.FromSeconds(10);
@@ -37,23 +40,56 @@ public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsy
     // below only allows for nothing but rounding noise, were any to appear.
     private const double RelativeTolerance = 1e-12;
 
+    private const string PasswordVariable = "SOFTSENSOR_TEST_PARITY_OPCUA_PASSWORD";
+
     private readonly MosquittoFixture _broker;
+    private readonly SecureOpcUaPeer _secure;
     private readonly OpcUaPeerServer _peer = new(new Dictionary<string, string> { ["OPCUA_PLANT_TAGS"] = string.Join(",", ParityRig.TagNames()) });
 
-    public OpcUaMqttParityTests(MosquittoFixture broker) => _broker = broker;
+    public OpcUaMqttParityTests(MosquittoFixture broker, SecureOpcUaPeer secure)
+    {
+        _broker = broker;
+        _secure = secure;
+    }
 
     public Task InitializeAsync() => _peer.StartAsync(CancellationToken.None);
 
     public Task DisposeAsync() => _peer.StopAsync();
 
     [Fact]
-    public async Task Daemon_fed_the_same_steps_by_OPC_UA_and_by_MQTT_gives_the_same_estimates_every_cycle()
+    public Task Daemon_fed_the_same_steps_by_OPC_UA_and_by_MQTT_gives_the_same_estimates_every_cycle() =>
+        RunParityAsync(_peer.EndpointUrl, c => c["opcUa:security"] = "none", new SessionOptions { EndpointUrl = _peer.EndpointUrl });
+
+    [Fact]
+    public async Task Daemon_reading_a_secure_only_server_signed_and_encrypted_gives_the_same_estimates_as_MQTT()
     {
+        Environment.SetEnvironmentVariable(PasswordVariable, SecureOpcUaPeer.Password);
+        try
+        {
+            await RunParityAsync(_secure.Server.EndpointUrl, c =>
+            {
+                c["opcUa:security"] = "sign-encrypt";
+                c["opcUa:policy"] = "Basic256Sha256";
+                c["opcUa:pki"] = _secure.TrustingPki;
+                c["opcUa:user"] = SecureOpcUaPeer.User;
+                c["opcUa:passwordVariable"] = PasswordVariable;
+            }, _secure.Options("Aes256_Sha256_RsaPss", SecurityChoice.Sign));
+        }
+        finally
+        {
+            Environment.SetEnvironmentVariable(PasswordVariable, null);
+        }
+    }
+
+    private async Task RunParityAsync(string endpointUrl, Action<Dictionary<string, string?>> configure, SessionOptions writer)
+    {
+        var config = ParityRig.Config(_broker.Port, endpointUrl);
+        configure(config);
         var scenario = ScenarioLoader.Load(DemoFiles.Find(DemoFiles.Scenario) ?? throw new FileNotFoundException(DemoFiles.Scenario));
         var sim = VirtualReactor.Create(scenario, scenario.Seed);
         var clock = new FakeTimeProvider(sim.Time);
         var recorder = new RecordingSink();
-        await using var daemon = await TestDaemon.StartAsync(ParityRig.Config(_broker.Port, _peer.EndpointUrl), s =>
+        await using var daemon = await TestDaemon.StartAsync(config, s =>
         {
             s.AddSingleton<TimeProvider>(clock);
             s.AddSingleton<IEstimateSink>(recorder);
@@ -63,7 +99,7 @@ public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsy
         var viaOpcUa = pipelines.Single(p => p.Reactor == ParityRig.OpcUaReactor);
 
         await using var mqtt = await TestMqttClient.ConnectAsync(_broker.Port, "parity-publisher");
-        await using var ua = await UaConnection.OpenAsync(new SessionOptions { EndpointUrl = _peer.EndpointUrl }, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
+        await using var ua = await UaConnection.OpenAsync(writer, TimeProvider.System, NullLogger.Instance, CancellationToken.None);
         var tags = ParityRig.TagNames();
         var nodes = tags.ToDictionary(t => t, t => ua.Session.Namespaces.Resolve(ExpandedNodeId.Parse(ParityRig.Node(t))) ?? throw new InvalidOperationException($"peer has no {ParityRig.Node(t)}"));
 
