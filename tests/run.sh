@@ -36,6 +36,8 @@ status=${PIPESTATUS[0]}
 set -e
 
 passed=0; failed=0
+# The published program's demo from outside the repository (README "Install").
+if bash tests/published-demo.sh; then passed=$((passed + 1)); else failed=$((failed + 1)); fi
 for f in "$results"/*.trx; do
   [ -f "$f" ] || continue
   p=$(grep -o '<Counters [^>]*' "$f" | grep -o ' passed="[0-9]*"' | grep -o '[0-9]*' || echo 0)

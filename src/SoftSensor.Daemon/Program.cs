@@ -8,10 +8,10 @@ internal static class Program
     {
         var root = VerbCatalog.BuildRoot();
         var parse = root.Parse(args);
-        if (parse.Errors.Count > 0)
+        if (parse.Errors.Count > 0 || args.Length == 0)
         {
             // One line for the whole parse, however many faults it found (scripts read one line).
-            return CliOutput.BadInput(Console.Error, string.Join("; ", parse.Errors.Select(e => e.Message)));
+            return CliOutput.BadInput(Console.Error, CliErrors.Describe(root, parse, args));
         }
 
         // On SIGTERM/Ctrl+C the verb's token is cancelled and the host drains (final checkpoint, outbox, MQTT

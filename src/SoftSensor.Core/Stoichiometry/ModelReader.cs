@@ -94,8 +94,17 @@ public static class ModelReader
             throw new ModelFormatException("compounds", $"expected an object keyed by compound id, found {element.ValueKind}");
         }
 
+        var compounds = UniqueProperties(element, "compounds");
+        var bad = compounds.Keys.Where(id => !IsValidId(id)).ToList();
+        if (bad.Count > 0)
+        {
+            // Every bad id at once, each with the id to write instead (O2, CO2, NH3 are what a user writes first).
+            string fixes = string.Join(", ", bad.Select(id => $"'{id}' → '{FixedId(id)}'"));
+            throw new ModelFormatException("compounds." + bad[0], $"id '{bad[0]}' must be lower case: a letter, then letters, digits or '_' (rename {fixes}, and the same ids wherever the file names them)");
+        }
+
         var list = new List<Compound>();
-        foreach (var (id, value) in UniqueProperties(element, "compounds"))
+        foreach (var (id, value) in compounds)
         {
             list.Add(ReadCompound(id, value));
         }
@@ -160,6 +169,13 @@ public static class ModelReader
         }
 
         return new Compound(id, formula!, role, molarMass, ash);
+    }
+
+    private static string FixedId(string id)
+    {
+        var chars = id.ToLowerInvariant().Select(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) ? c : '_').ToArray();
+        string s = new(chars);
+        return s.Length > 0 && char.IsAsciiLetterLower(s[0]) ? s : "c_" + s;
     }
 
     private static bool IsValidId(string id) =>

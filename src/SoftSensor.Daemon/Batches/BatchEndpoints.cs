@@ -23,9 +23,11 @@ internal static class BatchEndpoints
 
     public static void MapBatchEndpoints(this IEndpointRouteBuilder app)
     {
+        // The batch book is the one source of the open batch: without one, the answer names the configured id the frames carry instead.
         app.MapGet("/api/batches/{reactor}", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
             Known(o.Value, reactor) is { } bad ? bad
-            : book.Current(reactor) is { } run ? Results.Ok(run) : Results.NotFound(new { problems = new[] { $"reactor '{reactor}' has no open batch" } }));
+            : book.Current(reactor) is { } run ? Results.Ok(run)
+            : Results.NotFound(new { problems = new[] { $"reactor '{reactor}' has no open batch" }, configuredBatchId = o.Value.Reactors.First(r => r.Id == reactor).BatchId }));
         app.MapPost("/api/batches/{reactor}/start", (string reactor, BatchStart body, BatchBook book, IOptions<SoftSensorOptions> o) =>
         {
             if (Known(o.Value, reactor) is { } bad)

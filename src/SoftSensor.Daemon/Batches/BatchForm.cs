@@ -41,8 +41,8 @@ internal static class BatchForm
 
     private static IResult Page(BatchBook book, SoftSensorOptions o, string message)
     {
-        var h = new StringBuilder("<!doctype html><html><head><meta charset=\"utf-8\"><title>softsensor batches</title></head><body>");
-        h.Append("<h1>Batches</h1><p>Advisory soft sensor: not a safety instrumented system. <a href=\"/\">Status</a> · <a href=\"/reports\">Batch reports</a></p>");
+        var h = new StringBuilder(Report.PageChrome.Top("Batches", "batches"));
+        h.Append("<h2>Batches</h2>");
         if (message.Length > 0)
         {
             h.Append("<p id=\"outcome\">").Append(WebUtility.HtmlEncode(message)).Append("</p>");
@@ -51,7 +51,7 @@ internal static class BatchForm
         foreach (var r in o.Reactors)
         {
             string id = WebUtility.HtmlEncode(r.Id);
-            h.Append("<section><h2>").Append(id).Append("</h2>");
+            h.Append("<section class=\"card\"><h2>Reactor ").Append(id).Append("</h2>");
             if (book.Current(r.Id) is { } run)
             {
                 h.Append(CultureInfo.InvariantCulture, $"<p>Open batch <b>{WebUtility.HtmlEncode(run.BatchId)}</b> since {run.StartedAt:O}: {run.InitialVolumeL} L, inoculum {run.InoculumBiomassGPerL} ± {run.InoculumBiomassSigmaGPerL} g/L, substrate {run.InitialSubstrateGPerL} g/L.</p>");
@@ -68,7 +68,7 @@ internal static class BatchForm
             }
             else
             {
-                h.Append("<form method=\"post\" action=\"/batches/").Append(id).Append("/start\">");
+                h.Append("<form class=\"entry\" method=\"post\" action=\"/batches/").Append(id).Append("/start\">");
                 foreach (var (name, label) in new[] { ("batchId", "Batch id"), ("initialVolumeL", "Initial volume, L"), ("inoculumBiomassGPerL", "Inoculum biomass, g/L"), ("inoculumBiomassSigmaGPerL", "Its standard uncertainty, g/L"), ("initialSubstrateGPerL", "Initial substrate, g/L") })
                 {
                     h.Append("<label>").Append(label).Append(" <input name=\"").Append(name).Append("\"></label><br>");
@@ -80,6 +80,6 @@ internal static class BatchForm
             h.Append("</section>");
         }
 
-        return Results.Content(h.Append("</body></html>").ToString(), "text/html; charset=utf-8");
+        return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
     }
 }

@@ -18,8 +18,8 @@ internal static partial class BatchReportEndpoints
     {
         app.MapGet("/reports", (BatchReports reports) =>
         {
-            var h = new StringBuilder("<!doctype html><html><head><meta charset=\"utf-8\"><title>softsensor batch reports</title></head><body>");
-            h.Append("<h1>Batch reports</h1><p><a href=\"/\">Status</a> · <a href=\"/batches\">Batches</a></p>");
+            var h = new StringBuilder(Report.PageChrome.Top("Batch reports", "reports"));
+            h.Append("<h2>Batch reports</h2>");
             var list = reports.List();
             if (list.Count == 0)
             {
@@ -28,17 +28,17 @@ internal static partial class BatchReportEndpoints
 
             foreach (var reactor in list.GroupBy(r => r.Reactor))
             {
-                h.Append("<h2>").Append(E(reactor.Key)).Append("</h2><ul>");
+                h.Append("<section class=\"card\"><h3>Reactor ").Append(E(reactor.Key)).Append("</h3><ul>");
                 foreach (var (r, b, written) in reactor)
                 {
                     h.Append("<li><a href=\"/reports/").Append(Uri.EscapeDataString(r)).Append('/').Append(Uri.EscapeDataString(b)).Append("/report.html\">")
                      .Append(E(b)).Append("</a> (written ").Append(E(written.ToString("O", System.Globalization.CultureInfo.InvariantCulture))).Append(")</li>");
                 }
 
-                h.Append("</ul>");
+                h.Append("</ul></section>");
             }
 
-            return Results.Content(h.Append("</body></html>").ToString(), "text/html; charset=utf-8");
+            return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
         });
         app.MapGet("/reports/{reactor}/{batch}/{file}", (string reactor, string batch, string file, BatchReports reports) =>
         {

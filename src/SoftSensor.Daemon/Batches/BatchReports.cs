@@ -19,7 +19,7 @@ namespace SoftSensor.Daemon.Batches;
 /// not fatal. Before reading, it waits (at most <see cref="FlushWait"/>) until the store holds a frame
 /// after the batch, so the last cycles of the batch are in it.
 /// </summary>
-internal sealed class BatchReports(BatchBook book, SqliteStore store, IOptions<SoftSensorOptions> options, ILogger<BatchReports> log) : BackgroundService
+internal sealed class BatchReports(BatchBook book, SqliteStore store, IOptions<SoftSensorOptions> options, ILogger<BatchReports> log, IEnumerable<IBatchSamples> sampleSources) : BackgroundService
 {
     private static readonly TimeSpan FlushWait = TimeSpan.FromSeconds(5);
     private readonly Channel<BatchRun> _ended = Channel.CreateUnbounded<BatchRun>(new UnboundedChannelOptions { SingleReader = true });
@@ -89,9 +89,12 @@ internal sealed class BatchReports(BatchBook book, SqliteStore store, IOptions<S
         var phases = book.Phases(run.Reactor, run.BatchId);
         string dir = FolderOf(run.Reactor, run.BatchId);
         Directory.CreateDirectory(dir);
-        var result = BatchReportSource.FromFrames(frames);
-        var figures = result.Series.Cycles > 0 ? ReportPlots.Draw(dir, result.Series, []) : [];
-        ReportWriter.Write(dir, $"Batch {run.BatchId} of reactor {run.Reactor}", result, figures, Sections(run, phases, alarms));
+        var samples = sampleSources.SelectMany(s => s.BiomassSamples(run.Reactor, run.BatchId)).OrderBy(s => s.SampledAt).ToList();
+        var scheduled = samples.Select(s => new Replay.ScheduledSample(new Core.Estimation.OfflineSample(s.SampledAt, s.ValueGPerL, s.SigmaGPerL), s.SampledAt, 0, s.Id)).ToList();
+        var result = BatchReportSource.FromFrames(frames) with { Samples = scheduled, SamplesApplied = samples.Count(s => s.Applied) };
+        var applied = scheduled.Where((_, i) => samples[i].Applied).ToList();
+        var figures = result.Series.Cycles > 0 ? ReportPlots.Draw(dir, result.Series, applied, run.StartedAt) : [];
+        ReportWriter.Write(dir, $"Batch {run.BatchId} of reactor {run.Reactor}", result, figures, Sections(run, phases, alarms, samples));
         return dir;
     }
 
@@ -105,14 +108,32 @@ internal sealed class BatchReports(BatchBook book, SqliteStore store, IOptions<S
 
     private void OnEnded(BatchRun run) => _ended.Writer.TryWrite(run);
 
-    private static string Sections(BatchRun run, IReadOnlyList<PhaseChange> phases, IReadOnlyList<StoredAlarm> alarms)
+    /// <summary>The batch's own sections of its report: the batch, its biomass samples, phases and alarm changes.</summary>
+    internal static string Sections(BatchRun run, IReadOnlyList<PhaseChange> phases, IReadOnlyList<StoredAlarm> alarms, IReadOnlyList<BatchSample> samples)
     {
         var ci = CultureInfo.InvariantCulture;
         var h = new StringBuilder("<h2>Batch</h2>\n<table>\n");
         Row(h, "batch id", run.BatchId);
         Row(h, "started / ended", string.Create(ci, $"{run.StartedAt:O} / {run.EndedAt:O}"));
         Row(h, "initial conditions", string.Create(ci, $"{run.InitialVolumeL:G6} L, inoculum {run.InoculumBiomassGPerL:G6} ± {run.InoculumBiomassSigmaGPerL:G6} g/L, substrate {run.InitialSubstrateGPerL:G6} g/L"));
-        h.Append("</table>\n<h2>Phases</h2>\n<table><tr><th>phase</th><th>from</th><th>set by</th></tr>\n");
+        h.Append("</table>\n<h2>Offline biomass samples</h2>\n");
+        if (samples.Count == 0)
+        {
+            h.Append("<p>None entered for this batch.</p>\n");
+        }
+        else
+        {
+            h.Append("<table><tr><th>input</th><th>sampled, batch h</th><th>kind</th><th>dry weight ± σ, g/L</th><th>outcome</th><th>estimate before → after the update, g/L</th></tr>\n");
+            foreach (var s in samples)
+            {
+                string shift = s.PriorGPerL is { } a && s.PosteriorGPerL is { } b ? string.Create(ci, $"{a:F3} → {b:F3}") : "—";
+                h.Append(ci, $"<tr><td>{s.Id}</td><td>{(s.SampledAt - run.StartedAt).TotalHours:F2}</td><td>{E(s.Kind)}</td><td>{s.ValueGPerL:F3} ± {s.SigmaGPerL:F3}</td><td>{E(s.Outcome)}</td><td>{shift}</td></tr>\n");
+            }
+
+            h.Append("</table>\n");
+        }
+
+        h.Append("<h2>Phases</h2>\n<table><tr><th>phase</th><th>from</th><th>set by</th></tr>\n");
         foreach (var p in phases)
         {
             h.Append("<tr><td>").Append(E(p.Phase)).Append("</td><td>").Append(E(p.At.ToString("O", ci))).Append("</td><td>").Append(E(p.Source)).Append("</td></tr>\n");

@@ -4,16 +4,17 @@ using System.Globalization;
 namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
-/// <c>softsensor sample add|list|show|corrected --url http://127.0.0.1:PORT --reactor R ...</c>: offline samples
-/// and withdrawals to a running daemon through its status API (<see cref="Samples.SampleEndpoints"/>). The
-/// options are the payload's fields (<see cref="Samples.SamplePayload"/>); the daemon validates them. Prints
-/// the daemon's JSON answer; exit 2 with its problems on one stderr line when it refuses, 1 when unreachable.
+/// <c>softsensor sample add|list|show|corrected --reactor R ...</c>: offline samples and withdrawals to a
+/// running daemon through its status API (<see cref="Samples.SampleEndpoints"/>), found as
+/// <see cref="DaemonLocator"/> says. The options are the payload's fields (<see cref="Samples.SamplePayload"/>);
+/// the daemon validates them. Prints the answer as text (<c>--json</c>: as the daemon sent it); exit 2 with
+/// its problems on one stderr line when it refuses, 1 when unreachable.
 /// </summary>
 internal sealed class SampleVerb : IVerb
 {
     public Command Build()
     {
-        var url = new Option<string>("--url") { Description = "status URL of the running daemon", DefaultValueFactory = _ => "http://127.0.0.1:8470" };
+        var client = new DaemonClient();
         var reactor = new Option<string>("--reactor") { Description = "reactor id", Required = true };
         var kind = new Option<string>("--kind") { Description = "dcw, od, substrate, product or removal", Required = true };
         var at = new Option<string>("--sampled-at") { Description = "sampling time, ISO 8601 with Z or an offset (e.g. 2026-03-01T10:00:00Z)", Required = true };
@@ -27,7 +28,7 @@ internal sealed class SampleVerb : IVerb
         var analyte = new Option<string?>("--analyte") { Description = "what a substrate or product assay measured (e.g. glycerol)" };
         var who = new Option<string?>("--operator") { Description = "who entered it" };
 
-        var add = new Command("add", "Enter an offline sample or a withdrawal") { url, reactor, kind, at, value, sigma, od, odSigma, factor, factorSigma, withdrawn, analyte, who };
+        var add = client.On(new Command("add", "Enter an offline sample or a withdrawal") { reactor, kind, at, value, sigma, od, odSigma, factor, factorSigma, withdrawn, analyte, who });
         add.SetAction((p, ct) =>
         {
             var body = new Dictionary<string, object>(StringComparer.Ordinal) { ["kind"] = p.GetValue(kind)!, ["sampledAt"] = p.GetValue(at)! };
@@ -48,18 +49,18 @@ internal sealed class SampleVerb : IVerb
             Put("withdrawnMl", p.GetValue(withdrawn));
             Put("analyte", p.GetValue(analyte));
             Put("operator", p.GetValue(who));
-            return BatchVerb.SendAsync(p.GetValue(url)!, $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}", body, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct);
+            return client.SendAsync(p, $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}", body, ct);
         });
 
         var batch = new Option<string?>("--batch") { Description = "only this batch's inputs" };
-        var list = new Command("list", "List the inputs of a reactor, newest first, with their outcome") { url, reactor, batch };
-        list.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!,
-            $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}" + (p.GetValue(batch) is { } b ? "?batch=" + Uri.EscapeDataString(b) : ""), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
+        var list = client.On(new Command("list", "List the inputs of a reactor, newest first, with their outcome") { reactor, batch });
+        list.SetAction((p, ct) => client.SendAsync(p,
+            $"/api/samples/{Uri.EscapeDataString(p.GetValue(reactor)!)}" + (p.GetValue(batch) is { } b ? "?batch=" + Uri.EscapeDataString(b) : ""), null, ct));
         var id = new Option<long>("--id") { Description = "input id (as add answered)", Required = true };
-        var show = new Command("show", "Show one input and its outcome") { url, reactor, id };
-        show.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "samples", p.GetValue(id)), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
-        var corrected = new Command("corrected", "Show the corrected trajectory stored after an input") { url, reactor, id };
-        corrected.SetAction((p, ct) => BatchVerb.SendAsync(p.GetValue(url)!, Path(p.GetValue(reactor)!, "corrected", p.GetValue(id)), null, p.InvocationConfiguration.Output, p.InvocationConfiguration.Error, ct));
+        var show = client.On(new Command("show", "Show one input and its outcome") { reactor, id });
+        show.SetAction((p, ct) => client.SendAsync(p, Path(p.GetValue(reactor)!, "samples", p.GetValue(id)), null, ct));
+        var corrected = client.On(new Command("corrected", "Show the corrected trajectory stored after an input") { reactor, id });
+        corrected.SetAction((p, ct) => client.SendAsync(p, Path(p.GetValue(reactor)!, "corrected", p.GetValue(id)), null, ct));
         return new Command("sample", "Offline samples and withdrawals to a running daemon: add, list, show, corrected") { add, list, show, corrected };
     }
 

@@ -7,24 +7,27 @@ using SoftSensor.Simulation;
 namespace SoftSensor.Daemon.Demo;
 
 /// <summary>
-/// Drives the virtual reactor on the demo's accelerated clock and publishes its tags to the broker
-/// as a plant gateway would: one JSON message per tag, <c>{"value", "timestamp", "quality"}</c>, on
-/// <c>demo/{reactor}/{tag}</c>, every scenario output interval of simulated time.
+/// Drives the virtual reactor on the demo's accelerated clock and publishes its signals to the broker
+/// as a plant gateway would: one JSON message per tag of the definition, <c>{"value", "timestamp",
+/// "quality"}</c>, on the tag's topic, every scenario output interval of simulated time, retained
+/// (as a gateway keeps the last value), so a daemon that subscribes late gets every tag at once.
 /// </summary>
 internal sealed class DemoPublisher
 {
     private readonly VirtualReactor _reactor;
     private readonly TimeProvider _clock;
-    private readonly string _reactorId;
+    private readonly string _clientId;
+    private readonly IReadOnlyList<VirtualTagRoute> _routes;
 
-    public DemoPublisher(VirtualReactor reactor, TimeProvider clock, string reactorId)
+    public DemoPublisher(VirtualReactor reactor, TimeProvider clock, string clientId, IReadOnlyList<VirtualTagRoute> routes)
     {
         _reactor = reactor;
         _clock = clock;
-        _reactorId = reactorId;
+        _clientId = clientId;
+        _routes = routes;
     }
 
-    /// <summary>The topic of a simulator tag (lowercase, dots become slashes' neighbours: R1.AIR.FLOW → demo/r1/air.flow).</summary>
+    /// <summary>The topic of a simulator tag in the demo definition (R1.AIR.FLOW → demo/r1/air.flow).</summary>
     public static string Topic(string reactorId, string tagName) =>
         $"demo/{reactorId}/{tagName[(tagName.IndexOf('.', StringComparison.Ordinal) + 1)..].ToLowerInvariant()}";
 
@@ -32,7 +35,7 @@ internal sealed class DemoPublisher
     public async Task RunAsync(string host, int port, CancellationToken cancellationToken)
     {
         using var client = new MqttClientFactory().CreateMqttClient();
-        var result = await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithClientId("softsensor-demo-reactor").Build(), cancellationToken);
+        var result = await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithClientId(_clientId).Build(), cancellationToken);
         if (result.ResultCode != MqttClientConnectResultCode.Success)
         {
             throw new InvalidOperationException($"the demo broker refused the simulator: {result.ResultCode}");
@@ -40,7 +43,6 @@ internal sealed class DemoPublisher
 
         var interval = TimeSpan.FromSeconds(_reactor.Scenario.OutputIntervalS);
         var values = new double[_reactor.Tags.Count];
-        var topics = _reactor.Tags.Select(t => Topic(_reactorId, t.Name)).ToArray();
         using var timer = new PeriodicTimer(interval, _clock);
         do
         {
@@ -52,11 +54,12 @@ internal sealed class DemoPublisher
 
             _reactor.ReadTags(values);
             string time = _reactor.Time.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture);
-            for (int i = 0; i < values.Length; i++)
+            foreach (var route in _routes)
             {
-                string json = string.Create(CultureInfo.InvariantCulture, $$"""{"value":{{values[i]:R}},"timestamp":"{{time}}","quality":"good"}""");
-                var message = new MqttApplicationMessageBuilder().WithTopic(topics[i]).WithPayload(Encoding.UTF8.GetBytes(json))
-                    .WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtMostOnce).Build();
+                double raw = route.Raw(values);
+                string json = string.Create(CultureInfo.InvariantCulture, $$"""{"value":{{raw:R}},"timestamp":"{{time}}","quality":"good"}""");
+                var message = new MqttApplicationMessageBuilder().WithTopic(route.Topic).WithPayload(Encoding.UTF8.GetBytes(json))
+                    .WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtMostOnce).WithRetainFlag().Build();
                 await client.PublishAsync(message, cancellationToken);
             }
         }

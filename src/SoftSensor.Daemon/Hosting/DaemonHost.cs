@@ -41,6 +41,8 @@ internal static class DaemonHost
         builder.Logging.AddFilter("Microsoft.Extensions.Hosting.Internal.Host", LogLevel.Critical);
         builder.Services.AddSoftSensorDaemon(builder.Configuration);
         builder.Services.AddSingleton(new Pipeline.ConfigLocation(settings.ConfigFile is { } config ? Path.GetDirectoryName(Path.GetFullPath(config))! : Directory.GetCurrentDirectory()));
+        builder.Services.AddSingleton(new DefinitionFile(settings.ConfigFile is { } file ? Path.GetFullPath(file) : null));
+        builder.Services.AddSingleton<DaemonStatusFile>().AddHostedService(sp => sp.GetRequiredService<DaemonStatusFile>());
         settings.ConfigureServices?.Invoke(builder.Services);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
         var app = builder.Build();

@@ -17,7 +17,7 @@ internal static class SampleEndpoints
 {
     /// <summary>Registers the sample book, the intake and the MQTT listener.</summary>
     public static IServiceCollection AddOperatorSamples(this IServiceCollection services) =>
-        services.AddSingleton<SampleBook>().AddSingleton<SampleIntake>().AddHostedService<SampleCommandListener>();
+        services.AddSingleton<SampleBook>().AddSingleton<Batches.IBatchSamples>(sp => sp.GetRequiredService<SampleBook>()).AddSingleton<SampleIntake>().AddHostedService<SampleCommandListener>();
 
     public static void MapSampleEndpoints(this IEndpointRouteBuilder app)
     {

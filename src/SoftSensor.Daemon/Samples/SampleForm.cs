@@ -72,8 +72,8 @@ internal static class SampleForm
     private static IResult Page(SampleBook book, SoftSensorOptions o, string message)
     {
         var ci = CultureInfo.InvariantCulture;
-        var h = new StringBuilder("<!doctype html><html><head><meta charset=\"utf-8\"><title>softsensor lab inputs</title></head><body>");
-        h.Append("<h1>Offline samples and removals</h1><p>Advisory soft sensor: not a safety instrumented system.</p>");
+        var h = new StringBuilder(Report.PageChrome.Top("Lab samples", "samples"));
+        h.Append("<h2>Offline samples and removals</h2>");
         if (message.Length > 0)
         {
             h.Append("<p id=\"outcome\">").Append(WebUtility.HtmlEncode(message)).Append("</p>");
@@ -82,7 +82,7 @@ internal static class SampleForm
         foreach (var r in o.Reactors)
         {
             string id = WebUtility.HtmlEncode(r.Id);
-            h.Append("<section><h2>").Append(id).Append("</h2><form method=\"post\" action=\"/samples/").Append(id).Append("\">");
+            h.Append("<section class=\"card\"><h2>Reactor ").Append(id).Append("</h2><form class=\"entry\" method=\"post\" action=\"/samples/").Append(id).Append("\">");
             h.Append("<label>Kind <select name=\"kind\"><option>dcw</option><option>od</option><option>substrate</option><option>product</option><option>removal</option></select></label><br>");
             foreach (var (name, label) in Fields)
             {
@@ -101,7 +101,7 @@ internal static class SampleForm
             h.Append("</table></section>");
         }
 
-        return Results.Content(h.Append("</body></html>").ToString(), "text/html; charset=utf-8");
+        return Results.Content(h.Append(Report.PageChrome.Bottom).ToString(), "text/html; charset=utf-8");
     }
 
     private static string E(string? s) => WebUtility.HtmlEncode(s ?? "");

@@ -1,4 +1,5 @@
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Contracts;
 using SoftSensor.Daemon.Mqtt;
 using SoftSensor.Daemon.Pipeline;
 
@@ -16,11 +17,24 @@ internal static class StatusDocuments
 
         /// <summary>The batch's phase at the newest frame (empty when no batch is open).</summary>
         public string Phase { get; init; } = "";
+
+        /// <summary>True when the batch book has a batch open (then <see cref="Batch"/> is its id); false when the frames carry the configured id.</summary>
+        public bool BatchOpen { get; init; }
+
+        /// <summary>When the open batch started (the page's batch age), or null.</summary>
+        public DateTimeOffset? BatchStartedAt { get; init; }
     }
 
     public sealed record EstimateDoc(string Name, double? Value, string Unit, double? Sigma, string Quality, uint StatusCode);
 
-    public sealed record InputDoc(string Tag, string Role, double? Value, string Unit, DateTimeOffset? SourceTime, double? AgeSeconds, string State, string Quality, uint StatusCode);
+    public sealed record InputDoc(string Tag, string Role, double? Value, string Unit, DateTimeOffset? SourceTime, double? AgeSeconds, string State, string Quality, uint StatusCode)
+    {
+        /// <summary>The value as the plant sends it, in the tag's own unit (raw = (value − offset) / scale).</summary>
+        public double? PlantValue { get; init; }
+
+        /// <summary>The tag's plant unit (the role's unit when the definition gives none).</summary>
+        public string PlantUnit { get; init; } = "";
+    }
 
     public sealed record TrendDoc(string Reactor, DateTimeOffset? From, DateTimeOffset? To, IReadOnlyDictionary<string, TrendSeries> Series)
     {
@@ -34,25 +48,34 @@ internal static class StatusDocuments
 
     public static double? Finite(double v) => double.IsFinite(v) ? v : null;
 
-    public static ReactorDoc Reactor(ReactorSnapshot s) => new(
+    /// <summary>A reactor's document; <paramref name="tags"/> (the reactor's tag map) gives each input's plant unit, <paramref name="batch"/> the open batch.</summary>
+    public static ReactorDoc Reactor(ReactorSnapshot s, IReadOnlyDictionary<string, Configuration.TagOptions>? tags = null, Batches.BatchRun? batch = null) => new(
         s.Reactor,
         s.Cycle,
         s.CycleTime,
         EstimatePayload.Name(s.Frame?.Quality ?? SampleQuality.Bad),
         s.Frame?.SourceTime,
         s.Frame?.Values.Select(v => new EstimateDoc(v.Name, Finite(v.Value), v.Unit, Finite(v.Sigma), EstimatePayload.Name(v.Quality), v.StatusCode)).ToList() ?? [],
-        s.Inputs.Select(i => new InputDoc(
-            i.Tag,
-            i.Role.ToString(),
-            Finite(i.Value),
-            SignalRoles.UnitOf(i.Role),
-            i.SourceTime == default ? null : i.SourceTime,
-            Finite(i.AgeSeconds),
-            i.State.ToString().ToLowerInvariant(),
-            EstimatePayload.Name(i.Quality),
-            i.StatusCode)).ToList())
+        s.Inputs.Select(i => Input(i, tags is not null && tags.TryGetValue(i.Tag, out var tag) ? tag : null)).ToList())
     {
         Batch = s.Frame?.BatchId ?? "",
         Phase = s.Frame?.Phase ?? "",
+        BatchOpen = batch is not null,
+        BatchStartedAt = batch?.StartedAt,
+    };
+
+    private static InputDoc Input(InputHealth i, Configuration.TagOptions? tag) => new(
+        i.Tag,
+        i.Role.ToString(),
+        Finite(i.Value),
+        SignalRoles.UnitOf(i.Role),
+        i.SourceTime == default ? null : i.SourceTime,
+        Finite(i.AgeSeconds),
+        i.State.ToString().ToLowerInvariant(),
+        EstimatePayload.Name(i.Quality),
+        i.StatusCode)
+    {
+        PlantValue = tag is null || tag.Scale == 0 ? Finite(i.Value) : Finite((i.Value - tag.Offset) / tag.Scale),
+        PlantUnit = string.IsNullOrEmpty(tag?.Unit) ? SignalRoles.UnitOf(i.Role) : tag.Unit,
     };
 }

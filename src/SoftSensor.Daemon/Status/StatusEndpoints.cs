@@ -34,10 +34,20 @@ internal static class StatusEndpoints
 
     public static void MapStatusEndpoints(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time) =>
-            Results.Content(StatusPage.With(JsonSerializer.Serialize(Current(board, link, o.Value, time), Json)), "text/html; charset=utf-8"));
-        app.MapGet("/api/status", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time) =>
-            Results.Json(Current(board, link, o.Value, time), Json));
+        app.MapGet("/", async (StatusBoard board, MqttLink link, Batches.BatchBook book, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, TimeProvider time, CancellationToken ct) =>
+        {
+            // The page carries its status and trends, so the first paint already shows values and plots.
+            var status = Current(board, link, book, o.Value, time);
+            var trends = new List<TrendDoc>();
+            foreach (var r in status.Reactors)
+            {
+                trends.Add(await TrendDocAsync(r.Id, null, store, samples, o.Value, ct));
+            }
+
+            return Results.Content(StatusPage.With(JsonSerializer.Serialize(status, Json), JsonSerializer.Serialize(trends, Json)), "text/html; charset=utf-8");
+        });
+        app.MapGet("/api/status", (StatusBoard board, MqttLink link, Batches.BatchBook book, IOptions<SoftSensorOptions> o, TimeProvider time) =>
+            Results.Json(Current(board, link, book, o.Value, time), Json));
         app.MapGet("/api/trends", TrendsAsync);
         app.MapGet("/api/estimates", EstimatesAsync);
         app.MapGet("/api/alarms", async (SqliteStore store, CancellationToken ct) =>
@@ -45,8 +55,9 @@ internal static class StatusEndpoints
         app.MapGet("/metrics", (PrometheusExporter exporter) => Results.Text(exporter.Render(), PrometheusExporter.ContentType));
     }
 
-    private static DaemonDoc Current(StatusBoard board, MqttLink link, SoftSensorOptions o, TimeProvider time) =>
-        new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(), board.All.Select(Reactor).ToList());
+    private static DaemonDoc Current(StatusBoard board, MqttLink link, Batches.BatchBook book, SoftSensorOptions o, TimeProvider time) =>
+        new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(),
+            board.All.Select(s => Reactor(s, o.Reactors.FirstOrDefault(r => r.Id == s.Reactor)?.Tags, book.Current(s.Reactor))).ToList());
 
     private static async Task<IResult> TrendsAsync(string? reactor, double? hours, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, CancellationToken ct)
     {
@@ -56,14 +67,19 @@ internal static class StatusEndpoints
             return Results.Json(new { error = $"reactor '{reactor}' is not configured (expected one of {string.Join(", ", o.Value.Reactors.Select(r => r.Id))})" }, Json, statusCode: 400);
         }
 
+        return Results.Json(await TrendDocAsync(id, hours, store, samples, o.Value, ct), Json);
+    }
+
+    private static async Task<TrendDoc> TrendDocAsync(string id, double? hours, SqliteStore store, Samples.SampleBook samples, SoftSensorOptions o, CancellationToken ct)
+    {
         var to = await store.LatestFrameTimeAsync(id, ct);
         var series = new Dictionary<string, TrendSeries>(StringComparer.Ordinal);
         if (to is null)
         {
-            return Results.Json(new TrendDoc(id, null, null, series), Json);
+            return new TrendDoc(id, null, null, series);
         }
 
-        var from = to.Value - TimeSpan.FromHours(Math.Clamp(hours ?? o.Value.Status.TrendHours, 0.01, 24 * 30));
+        var from = to.Value - TimeSpan.FromHours(Math.Clamp(hours ?? o.Status.TrendHours, 0.01, 24 * 30));
         foreach (var name in TrendNames)
         {
             var rows = await store.QueryEstimatesAsync(id, name, from, to.Value, 100_000, ct);
@@ -82,11 +98,11 @@ internal static class StatusEndpoints
         var corrected = samples.Latest(id, from, to.Value);
         int every = Math.Max(1, (corrected.Count + MaxPoints - 1) / MaxPoints);
         var kept = corrected.Where((_, i) => i % every == 0 || i == corrected.Count - 1).ToList();
-        return Results.Json(new TrendDoc(id, from, to, series)
+        return new TrendDoc(id, from, to, series)
         {
             CorrectedBiomass = kept.Count == 0 ? null
                 : new TrendSeries("g/L", kept.Select(p => p.Time.ToUnixTimeMilliseconds()).ToList(), kept.Select(p => Finite(p.BiomassGPerL)).ToList(), kept.Select(_ => 0).ToList()),
-        }, Json);
+        };
     }
 
     private static async Task<IResult> EstimatesAsync(string reactor, string? name, DateTimeOffset? from, DateTimeOffset? to, int? limit, SqliteStore store, CancellationToken ct)

@@ -44,6 +44,16 @@ public class ModelReaderTests
         Assert.Equal("unnamed model", model.Name);
     }
 
+    [Fact]
+    public void Parse_upper_case_ids_lists_every_one_with_the_id_to_write_in_one_message()
+    {
+        // The ids a user writes first (formulas as ids); the fix names each, so one run is enough.
+        var ex = Assert.Throws<ModelFormatException>(() => ModelReader.Parse(
+            """{ "compounds": { "glycerol": { "formula": "C3H8O3" }, "O2": { "formula": "O2" }, "CO2": { "formula": "CO2" }, "NH3": { "formula": "NH3" }, "2x": { "formula": "CH2O" } } }"""));
+        Assert.Equal("compounds.O2", ex.Field);
+        Assert.Contains("(rename 'O2' → 'o2', 'CO2' → 'co2', 'NH3' → 'nh3', '2x' → 'c_2x', and the same ids wherever the file names them)", ex.Message, StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData("""{ "compounds": { "x": { "formula": "CH1.8Xe0.5" } } }""", "compounds.x.formula", "unknown element 'Xe'")]
     [InlineData("""{ "compounds": { "o2": { "formula": "O2" }, "o2": { "formula": "O2" } } }""", "compounds.o2", "duplicate key")]

@@ -12,14 +12,9 @@ internal static class CliRunner
         using var error = new StringWriter();
         var parse = VerbCatalog.BuildRoot().Parse(args);
         int code;
-        if (parse.Errors.Count > 0)
+        if (parse.Errors.Count > 0 || args.Length == 0)
         {
-            foreach (var e in parse.Errors)
-            {
-                error.WriteLine("error: " + e.Message);
-            }
-
-            code = ExitCodes.BadInput;
+            code = CliOutput.BadInput(error, CliErrors.Describe(VerbCatalog.BuildRoot(), parse, args));
         }
         else
         {

@@ -37,7 +37,8 @@ internal static class ParityRig
         var c = new Dictionary<string, string?>(StringComparer.OrdinalIgnoreCase);
         foreach (var (key, value) in demo.AsEnumerable())
         {
-            if (value is null || key.StartsWith("mqtt:", StringComparison.OrdinalIgnoreCase) || key.StartsWith("store:", StringComparison.OrdinalIgnoreCase) || key.StartsWith("status:", StringComparison.OrdinalIgnoreCase))
+            if (value is null || key.StartsWith("mqtt:", StringComparison.OrdinalIgnoreCase) || key.StartsWith("store:", StringComparison.OrdinalIgnoreCase) || key.StartsWith("status:", StringComparison.OrdinalIgnoreCase)
+                || key.StartsWith("alarms:", StringComparison.OrdinalIgnoreCase))
             {
                 continue;
             }

@@ -14,7 +14,7 @@ public sealed class SampleEntryPathsTests(MosquittoFixture broker) : IClassFixtu
     {
         await using var daemon = await TestDaemon.StartAsync(TestConfigs.HandCase(broker.Port, "samplecli"));
         string url = daemon.StatusAddress;
-        var (code, output, error) = await Task.Run(() => CliRunner.Run("sample", "add", "--url", url, "--reactor", "r1", "--kind", "od",
+        var (code, output, error) = await Task.Run(() => CliRunner.Run("sample", "add", "--json", "--url", url, "--reactor", "r1", "--kind", "od",
             "--sampled-at", DateTimeOffset.UtcNow.AddHours(-2).ToString("yyyy-MM-ddTHH:mm:ssZ", System.Globalization.CultureInfo.InvariantCulture),
             "--od", "10", "--od-sigma", "0.2", "--factor-g-per-l-per-od", "0.38", "--factor-sigma-g-per-l-per-od", "0.02", "--withdrawn-ml", "40"));
         Assert.True(code == ExitCodes.Ok, error);
@@ -38,7 +38,7 @@ public sealed class SampleEntryPathsTests(MosquittoFixture broker) : IClassFixtu
         }
 
         Assert.Equal(SampleOutcomes.Unsupported, book.List("r1")[0].Outcome);
-        var (listed, list, _) = await Task.Run(() => CliRunner.Run("sample", "list", "--url", url, "--reactor", "r1"));
+        var (listed, list, _) = await Task.Run(() => CliRunner.Run("sample", "list", "--json", "--url", url, "--reactor", "r1"));
         Assert.Equal(ExitCodes.Ok, listed);
         Assert.Contains("\"outcome\":\"unsupported\"", list, StringComparison.Ordinal);
 
