@@ -71,8 +71,6 @@ internal sealed class OpcUaVerb : IVerb
         try
         {
             await using var connection = await UaConnection.OpenAsync(new SessionOptions { EndpointUrl = endpointUrl, Identity = identity, Security = security }, TimeProvider.System, logger, cancellationToken);
-            string chosen = security.Mode == SecurityChoice.Auto && security.Policy is null ? " (the most secure endpoint both sides support)" : string.Empty;
-            await error.WriteLineAsync($"security: {connection.Channel.Security.Describe()}{chosen}");
             var target = await BrowsePathResolver.ResolveAsync(connection.Session, path, cancellationToken);
             if (!target.IsFound)
             {
@@ -89,6 +87,9 @@ internal sealed class OpcUaVerb : IVerb
             {
                 WriteTable(output, path, nodeId, children);
             }
+
+            string chosen = security.Mode == SecurityChoice.Auto && security.Policy is null ? " (the most secure endpoint both sides support)" : string.Empty;
+            await error.WriteLineAsync($"security: {connection.Channel.Security.Describe()}{chosen}");
 
             return ExitCodes.Ok;
         }

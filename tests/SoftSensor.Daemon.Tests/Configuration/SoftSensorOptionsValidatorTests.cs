@@ -94,6 +94,35 @@ public class SoftSensorOptionsValidatorTests
             result.FailureMessage);
     }
 
+    [Theory]
+    [InlineData("security", "encrypt", "opcUa:security is 'encrypt' (expected none, sign or sign-encrypt; empty for the most secure endpoint both sides support)")]
+    [InlineData("policy", "Basic256", "opcUa:policy is 'Basic256' (Security policy Basic256 is refused: deprecated by IEC 62541-7 since 1.04")]
+    [InlineData("policy", "Basic128Rsa15", "opcUa:policy is 'Basic128Rsa15' (Security policy Basic128Rsa15 is refused: deprecated by IEC 62541-7 since 1.04")]
+    [InlineData("policy", "Basic512", "opcUa:policy is 'Basic512' (Security policy 'Basic512' is unknown")]
+    public void Validate_opcUa_security_keys_refuse_unknown_and_deprecated_values_naming_the_key(string key, string value, string expectedStart)
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["opcUa:endpoint"] = "opc.tcp://127.0.0.1:4840/softsensor";
+        keys["opcUa:" + key] = value;
+
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+
+        Assert.StartsWith(expectedStart, result.FailureMessage, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Validate_opcUa_secured_policy_with_security_none_is_refused()
+    {
+        var keys = TestConfigs.HandCase(1883, "t");
+        keys["opcUa:endpoint"] = "opc.tcp://127.0.0.1:4840/softsensor";
+        keys["opcUa:security"] = "none";
+        keys["opcUa:policy"] = "Basic256Sha256";
+
+        var result = new SoftSensorOptionsValidator().Validate(null, Bind(keys));
+
+        Assert.Equal("opcUa:policy is 'Basic256Sha256' with opcUa:security 'none' (expected policy None with security none, and a secured policy with sign or sign-encrypt)", result.FailureMessage);
+    }
+
     [Fact]
     public void Validate_opcUaNode_with_an_endpoint_succeeds()
     {
