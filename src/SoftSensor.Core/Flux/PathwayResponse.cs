@@ -58,12 +58,14 @@ public sealed class PathwayResponse
 
         HasOverflow = overflowReaction is not null;
 
-        // The same network with the ATP balance taken out: the four basis fluxes then fix every flux.
+        // The same network with the ATP balance taken out and the overflow branch freed (a fixed split
+        // of 0 keeps it shut for `softsensor flux`): the four basis fluxes then fix every flux.
         var stripped = model with
         {
             Metabolites = model.Metabolites.Where(m => m.Id != atp).ToList(),
             Reactions = model.Reactions.Select(r => r with { Terms = r.Terms.Where(t => t.Species != atp).ToList() }).ToList(),
             Maintenance = null,
+            Splits = model.Splits.Where(sp => sp.Flux != overflowReaction).ToList(),
         };
         var network = FluxNetwork.Compile(stripped);
         var basis = new List<string> { biomass.Id, resp.Id, maintenance.Reaction };
