@@ -16,7 +16,9 @@ internal static class PathwayStep
         var r = o.Rates;
         double v = volume.VolumeL;
         double feed = inputs[SignalRole.FeedRateLPerH];
-        bool feedOn = inputs.QualityOf(SignalRole.FeedRateLPerH) != SampleQuality.Bad && feed > settings.MinimumFeedLPerH && v > 0;
+        // The feed is the uptake only while the residual substrate stays near zero (docs/methods.md §2.7).
+        bool feedOn = inputs.QualityOf(SignalRole.FeedRateLPerH) != SampleQuality.Bad && feed > settings.MinimumFeedLPerH && v > 0
+            && !(o.SubstrateGPerL > stage.Settings.FeedIsUptakeBelowGPerL);
         double cFeed = settings.Estimator.FeedSubstrateGPerL;
         double mS = stage.Response.SubstrateGPerCmol;
         double rS = feedOn ? -feed * cFeed * 1000.0 / (mS * v) : double.NaN;

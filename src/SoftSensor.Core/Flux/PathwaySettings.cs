@@ -29,7 +29,7 @@ public sealed record PathwaySettings
     public double PoSigma { get; init; } = 0.3;
 
     /// <summary>Random-walk intensity of the P/O ratio, per √h (how fast it may drift).</summary>
-    public double PoRandomWalkPerSqrtH { get; init; } = 0.3;
+    public double PoRandomWalkPerSqrtH { get; init; } = 0.1;
 
     /// <summary>Prior relative standard deviation of m_ATP.</summary>
     public double MaintenanceRelativeSigma { get; init; } = 0.5;
@@ -42,6 +42,18 @@ public sealed record PathwaySettings
 
     /// <summary>Relative standard uncertainty of the biomass concentration the stage divides by when the cycle gives none.</summary>
     public double BiomassRelativeSigmaFloor { get; init; } = 0.03;
+
+    /// <summary>Cycles summed by the consistency statistic (1 to <see cref="PathwayState.WindowCapacity"/>): the sum of the last N normalised innovations squared is χ² with the summed degrees of freedom while model and data agree, and a persistent small gap (a drift of P/O) shows in it before it shows in one cycle.</summary>
+    public int Window { get; init; } = 10;
+
+    /// <summary>Residual substrate (the cycle's estimate) above which the feed is not taken as the uptake, g/L (docs/methods.md §2.7: feed equals uptake only while S stays near zero); NaN: not used (the default, because the cycle's residual-substrate estimate is only as good as the balance's consumption).</summary>
+    public double FeedIsUptakeBelowGPerL { get; init; } = double.NaN;
+
+    /// <summary>Innovation gate: a cycle whose normalised innovation squared exceeds the χ² quantile at 1 - <see cref="GateAlpha"/> does not update the parameter (an outlier, or the feed not yet the uptake)...</summary>
+    public double GateAlpha { get; init; } = 1e-4;
+
+    /// <summary>...unless this many cycles in a row exceed it: then the change is taken as real, the parameter's variance is reset to its prior and the update made.</summary>
+    public int GatePersistence { get; init; } = 5;
 
     /// <summary>Significance level of the consistency statistic.</summary>
     public double Alpha { get; init; } = 0.01;
@@ -73,6 +85,25 @@ public sealed record PathwaySettings
         if (!double.IsNaN(RespiratoryCapacityO2MmolPerGh))
         {
             Positive(nameof(RespiratoryCapacityO2MmolPerGh), RespiratoryCapacityO2MmolPerGh);
+        }
+
+        if (!double.IsNaN(FeedIsUptakeBelowGPerL))
+        {
+            Positive(nameof(FeedIsUptakeBelowGPerL), FeedIsUptakeBelowGPerL);
+        }
+
+        if (!(GateAlpha > 0 && GateAlpha < Alpha))
+        {
+            e.Add($"Pathway.{nameof(GateAlpha)} is {GateAlpha}; expected a level in (0, Alpha = {Alpha})");
+        }
+
+        if (GatePersistence < 1)
+        {
+            e.Add($"Pathway.{nameof(GatePersistence)} is {GatePersistence}; expected 1 or more cycles");
+        }
+        if (Window < 1 || Window > PathwayState.WindowCapacity)
+        {
+            e.Add($"Pathway.{nameof(Window)} is {Window}; expected 1 to {PathwayState.WindowCapacity} cycles");
         }
 
         if (!(Alpha > 0 && Alpha < 0.5))

@@ -18,7 +18,8 @@ namespace SoftSensor.Core.Flux;
 public sealed class PathwayStage
 {
     private readonly PathwaySettings _s;
-    private readonly double[] _critical = new double[3];
+    private readonly double[] _critical;
+    private readonly double _gate2;
     private readonly double[] _u = new double[PathwayResponse.BasisCount];
     private readonly double[] _rates;
 
@@ -34,9 +35,13 @@ public sealed class PathwayStage
 
         _s = settings;
         Response = new PathwayResponse(model, settings.OverflowReaction);
+        _gate2 = ChiSquared.InvCDF(2, 1 - settings.GateAlpha);
         _rates = new double[Response.CompoundCount];
-        _critical[1] = ChiSquared.InvCDF(1, 1 - settings.Alpha);
-        _critical[2] = ChiSquared.InvCDF(2, 1 - settings.Alpha);
+        _critical = new double[(2 * settings.Window) + 1];
+        for (int d = 1; d < _critical.Length; d++)
+        {
+            _critical[d] = ChiSquared.InvCDF(d, 1 - settings.Alpha);
+        }
     }
 
     /// <summary>The compiled network.</summary>
@@ -168,8 +173,36 @@ public sealed class PathwayStage
             }
 
             double i00 = s11 / det, i11 = s00 / det, i01 = -s01 / det;
-            o.Statistic = (e0 * e0 * i00) + (2 * e0 * e1 * i01) + (e1 * e1 * i11);
-            o.DegreesOfFreedom = 2;
+            double nis = (e0 * e0 * i00) + (2 * e0 * e1 * i01) + (e1 * e1 * i11);
+            Window(state, nis, 2, ref o);
+            if (nis > _gate2 && ++state.GatedCycles < _s.GatePersistence)
+            {
+                Publish(state, ref o);
+                return;
+            }
+
+            if (state.GatedCycles >= _s.GatePersistence)
+            {
+                // A persistent change: restart the tracked parameter from its prior variance (the filter forgets).
+                double prior = trackPo ? _s.PoSigma * _s.PoSigma : Math.Pow(_s.MaintenanceRelativeSigma * r.ModelMaintenanceAtpPerCmmolH, 2);
+                double add = Math.Max(0, prior - vT);
+                vT += add;
+                s00 += jT.Our * jT.Our * add;
+                s11 += jT.Cer * jT.Cer * add;
+                s01 += jT.Our * jT.Cer * add;
+                det = (s00 * s11) - (s01 * s01);
+                (i00, i11, i01) = (s11 / det, s00 / det, -s01 / det);
+                if (trackPo)
+                {
+                    state.PoVariance = vT;
+                }
+                else
+                {
+                    state.MaintenanceVariance = vT;
+                }
+            }
+
+            state.GatedCycles = 0;
             // K = P H^T S^-1 (a row of two); θ += K e; P -= K H P.
             double k0 = vT * ((jT.Our * i00) + (jT.Cer * i01));
             double k1 = vT * ((jT.Our * i01) + (jT.Cer * i11));
@@ -186,14 +219,36 @@ public sealed class PathwayStage
                 return;
             }
 
-            o.Statistic = e * e / s;
-            o.DegreesOfFreedom = 1;
-            double k = vT * jT.Cer / s;
-            Update(state, trackPo, k * e, k * jT.Cer * vT);
+            // No update here: with OUR as the basis the CER residual hardly moves with P/O or m_ATP
+            // (the RQ of growth and of respiration are close), so the model's own error would drive them.
+            Window(state, e * e / s, 1, ref o);
         }
 
-        o.Critical = _critical[o.DegreesOfFreedom];
         Publish(state, ref o);
+    }
+
+    private void Window(PathwayState state, double nis, int dof, ref PathwayOutputs o)
+    {
+        if (!double.IsFinite(nis))
+        {
+            return;
+        }
+
+        state.Innovations[state.Next] = nis;
+        state.InnovationDof[state.Next] = dof;
+        state.Next = (state.Next + 1) % _s.Window;
+        state.Filled = Math.Min(state.Filled + 1, _s.Window);
+        double sum = 0;
+        int d = 0;
+        for (int i = 0; i < state.Filled; i++)
+        {
+            sum += state.Innovations[i];
+            d += state.InnovationDof[i];
+        }
+
+        o.Statistic = sum;
+        o.DegreesOfFreedom = d;
+        o.Critical = _critical[d];
     }
 
     /// <summary>The largest substrate uptake (C-mmol/(L·h), positive) whose respiration stays within <paramref name="ourCap"/> at the parameters given; the model is affine in the uptake.</summary>

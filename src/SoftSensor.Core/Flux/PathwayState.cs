@@ -17,4 +17,22 @@ public sealed class PathwayState
 
     /// <inheritdoc cref="MaintenanceAtp"/>
     public double MaintenanceVariance { get; set; } = double.NaN;
+
+    /// <summary>Largest window of the consistency statistic, cycles.</summary>
+    public const int WindowCapacity = 64;
+
+    /// <summary>The last normalised innovations squared and their degrees of freedom (ring buffer of the windowed statistic).</summary>
+    internal double[] Innovations { get; } = new double[WindowCapacity];
+
+    /// <inheritdoc cref="Innovations"/>
+    internal int[] InnovationDof { get; } = new int[WindowCapacity];
+
+    /// <summary>Cycles in a row whose innovation exceeded the gate.</summary>
+    public int GatedCycles { get; set; }
+
+    /// <summary>Next slot of the ring buffer and how many are filled.</summary>
+    internal int Next { get; set; }
+
+    /// <inheritdoc cref="Next"/>
+    internal int Filled { get; set; }
 }
