@@ -182,7 +182,7 @@ public sealed class Cycle
         if (_heat is not null)
         {
             var heat = outputs.Heat;
-            _heat.Run(inputs, v, _solved == _withSubstrate && _solved != _gasOnly, _solved is null ? default : _solved.Measured, _solved is null ? default : _solved.Covariance, ref heat);
+            _heat.Run(inputs, v, gas.OutletFlowNlPerMin, _solved == _withSubstrate && _solved != _gasOnly, _solved is null ? default : _solved.Measured, _solved is null ? default : _solved.Covariance, ref heat);
             outputs.Heat = heat;
         }
     }

@@ -22,6 +22,12 @@ public sealed record HeatBalanceSettings
     /// <summary>Ambient temperature the loss refers to, °C.</summary>
     public double AmbientTemperatureC { get; init; } = 20;
 
+    /// <summary>Count the heat the off-gas carries away as water vapour (saturated at the broth temperature, from the dry outlet flow of the gas balance); false when a condenser returns it or the loss calibration covers it.</summary>
+    public bool EvaporationFromGas { get; init; } = true;
+
+    /// <summary>Latent heat of water, kJ/mol (43.5: 2414 kJ/kg near 37 °C, steam tables; from memory).</summary>
+    public double LatentHeatKjPerMol { get; init; } = 43.5;
+
     /// <summary>Standard uncertainty of the calibrated loss, W.</summary>
     public double HeatLossSigmaW { get; init; } = 20;
 

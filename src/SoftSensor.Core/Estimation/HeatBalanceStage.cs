@@ -7,8 +7,8 @@ namespace SoftSensor.Core.Estimation;
 /// The jacket heat balance of the cycle (docs/pathway.md §4): Q_met = Q_cool + Q_loss - P_stirrer with
 /// Q_cool = ρ F c_p (T_out - T_in) and, when only the speed is measured, P = N_p ρ N³ D⁵ per impeller
 /// (Rushton, Costich &amp; Everett 1950, Chem. Eng. Prog. 46); the sensible heat of a temperature-
-/// controlled broth and the evaporation are not modelled (the calibrated loss takes the evaporation at
-/// the calibration's aeration). Heat-based OUR = Q_met / ΔH_ox / V, and the heat row in
+/// controlled broth is not modelled; the evaporation is, from the dry outlet flow saturated with water
+/// at the broth temperature (<see cref="HeatBalanceSettings.EvaporationFromGas"/>). Heat-based OUR = Q_met / ΔH_ox / V, and the heat row in
 /// <see cref="HeatConsistency"/>. Allocation-free per cycle.
 /// </summary>
 public sealed class HeatBalanceStage
@@ -36,7 +36,7 @@ public sealed class HeatBalanceStage
     public HeatBalanceSettings Settings => _s;
 
     /// <summary>Metabolic heat, W, and its standard uncertainty from the jacket inputs; false when a jacket input is missing or Bad.</summary>
-    public bool MetabolicHeat(AlignedInputs inputs, out double watts, out double sigmaW)
+    public bool MetabolicHeat(AlignedInputs inputs, double outletDryNlPerMin, out double watts, out double sigmaW)
     {
         watts = sigmaW = double.NaN;
         if (!Usable(inputs, SignalRole.CoolantFlowLPerH) || !Usable(inputs, SignalRole.CoolantInletTemperatureC) || !Usable(inputs, SignalRole.CoolantOutletTemperatureC))
@@ -66,19 +66,28 @@ public sealed class HeatBalanceStage
 
         double t = inputs.Has(SignalRole.TemperatureC) ? inputs[SignalRole.TemperatureC] : _s.AmbientTemperatureC;
         double loss = _s.HeatLossW + (_s.HeatLossWPerK * (t - _s.AmbientTemperatureC));
-        watts = cool + loss - stirrer;
+        double evap = 0;
+        if (_s.EvaporationFromGas && double.IsFinite(outletDryNlPerMin) && inputs.Has(SignalRole.PressureKPa) && inputs.Has(SignalRole.TemperatureC))
+        {
+            // mol/h dry gas (NL at 0 °C, 101.325 kPa: 22.414 L/mol) × p_w / (P - p_w) × kJ/mol / 3.6 = W.
+            double pw = Gas.WaterVapour.SaturationPressureKPa(t + 273.15);
+            double p = inputs[SignalRole.PressureKPa];
+            evap = p > pw ? outletDryNlPerMin * 60.0 / 22.414 * pw / (p - pw) * _s.LatentHeatKjPerMol / 3.6 : 0;
+        }
+
+        watts = cool + loss + evap - stirrer;
         sigmaW = Math.Sqrt(coolVar + (_s.HeatLossSigmaW * _s.HeatLossSigmaW) + Math.Pow(_s.StirrerPowerRelativeSigma * stirrer, 2));
         return double.IsFinite(watts);
     }
 
     /// <summary>Runs the heat balance of one cycle; <paramref name="measured"/> and <paramref name="covariance"/> are the elemental stage's (null when it did not run).</summary>
-    public void Run(AlignedInputs inputs, double volumeL, bool withSubstrate, ReadOnlySpan<double> measured, ReadOnlySpan<double> covariance, ref HeatOutputs o)
+    public void Run(AlignedInputs inputs, double volumeL, double outletDryNlPerMin, bool withSubstrate, ReadOnlySpan<double> measured, ReadOnlySpan<double> covariance, ref HeatOutputs o)
     {
         o = HeatOutputs.Empty;
         o.Configured = true;
         var test = withSubstrate ? _withSubstrate : _gasOnly;
         o.Redundancy = test.Redundancy;
-        if (!MetabolicHeat(inputs, out double w, out double sw) || !(volumeL > 0))
+        if (!MetabolicHeat(inputs, outletDryNlPerMin, out double w, out double sw) || !(volumeL > 0))
         {
             return;
         }

@@ -115,6 +115,7 @@ public sealed class PathwayResponse
         BiomassIndex = model.CompoundIndex(biomass.Id);
         BiomassWeighedGPerCmol = biomass.WeighedMassGPerRateUnit;
         SubstrateGPerCmol = substrate.MassGPerRateUnit;
+        SubstrateGamma = substrate.DegreeOfReductionPerRateUnit;
         OverflowProductIndex = -1;
         if (overflowReaction is not null)
         {
@@ -178,6 +179,9 @@ public sealed class PathwayResponse
 
     /// <summary>Grams of dry weight (ash included) per C-mol biomass.</summary>
     public double BiomassWeighedGPerCmol { get; }
+
+    /// <summary>Degree of reduction of the substrate per C-mol (Roels 1983).</summary>
+    public double SubstrateGamma { get; }
 
     /// <summary>Grams of substrate per C-mol.</summary>
     public double SubstrateGPerCmol { get; }

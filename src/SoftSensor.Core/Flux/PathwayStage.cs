@@ -99,11 +99,23 @@ public sealed class PathwayStage
         }
 
         double po = state.PoRatio, m = state.MaintenanceAtp, sub = x.SubstrateCmmolPerLh, our = x.OurMmolPerLh;
+        if (substrate && gas && our - (2 * x.OurSigmaMmolPerLh) > r.SubstrateGamma * -sub / 4.0)
+        {
+            // More O2 than burning all the fed substrate could take (electron balance, gamma(O2) = -4):
+            // the culture eats something besides the feed (residual substrate, a by-product), so the
+            // feed is not its uptake; OUR is the basis this cycle.
+            basis = PathwayBasis.Oxygen;
+            substrate = false;
+        }
+
         if (substrate && double.IsFinite(_s.RespiratoryCapacityO2MmolPerGh))
         {
             double cap = _s.RespiratoryCapacityO2MmolPerGh * xg;
             o.CriticalUptakeCmmolPerLh = CriticalUptake(po, m, xc, cap);
-            if (r.HasOverflow && -sub > o.CriticalUptakeCmmolPerLh)
+            // Overflow: the model's split puts the uptake above the capacity, and the measured OUR
+            // confirms that respiration is capped (below what the respiratory regime would need).
+            if (r.HasOverflow && -sub > o.CriticalUptakeCmmolPerLh
+                && (!gas || (Predict(PathwayBasis.Substrate, po, m, xc, sub, our, out double ourResp, out _, out _) && our < ourResp - (2 * x.OurSigmaMmolPerLh))))
             {
                 o.Overflow = true;
                 basis = PathwayBasis.SubstrateAndOxygen;
