@@ -22,17 +22,17 @@ public sealed class PathwayState
     public const int WindowCapacity = 64;
 
     /// <summary>The last normalised innovations squared and their degrees of freedom (ring buffer of the windowed statistic).</summary>
-    internal double[] Innovations { get; } = new double[WindowCapacity];
+    public double[] Innovations { get; } = new double[WindowCapacity];
 
     /// <inheritdoc cref="Innovations"/>
-    internal int[] InnovationDof { get; } = new int[WindowCapacity];
+    public int[] InnovationDof { get; } = new int[WindowCapacity];
 
     /// <summary>Cycles in a row whose innovation exceeded the gate.</summary>
     public int GatedCycles { get; set; }
 
     /// <summary>Next slot of the ring buffer and how many are filled.</summary>
-    internal int Next { get; set; }
+    public int Next { get; set; }
 
     /// <inheritdoc cref="Next"/>
-    internal int Filled { get; set; }
+    public int Filled { get; set; }
 }
