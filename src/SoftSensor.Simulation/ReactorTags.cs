@@ -27,8 +27,21 @@ public static class ReactorTags
     internal const int AirFlow = 0, OxygenFlow = 1, InletO2 = 2, InletCo2 = 3, OffgasO2 = 4, OffgasCo2 = 5, Pressure = 6,
         Temperature = 7, Weight = 8, FeedRate = 9, BaseRate = 10, DissolvedOxygen = 11, Ph = 12;
 
-    /// <summary>Number of tags.</summary>
+    /// <summary>The jacket's tags, after <see cref="Layout"/> when the scenario has a jacket.</summary>
+    internal static readonly (string Suffix, string Unit, SignalRole? Role, string Description)[] JacketLayout =
+    [
+        ("JACKET.FLOW", "L/h", SignalRole.CoolantFlowLPerH, "jacket coolant flow"),
+        ("JACKET.TIN", "°C", SignalRole.CoolantInletTemperatureC, "jacket coolant inlet temperature"),
+        ("JACKET.TOUT", "°C", SignalRole.CoolantOutletTemperatureC, "jacket coolant outlet temperature"),
+        ("STIRRER.POWER", "W", SignalRole.StirrerPowerW, "stirrer shaft power"),
+    ];
+
+    /// <summary>Number of tags without a jacket (with one: plus <see cref="JacketLayout"/>).</summary>
     public static int Count => Layout.Length;
+
+    /// <summary>The tag list with the prefix applied, with the jacket's tags when <paramref name="jacket"/>.</summary>
+    public static IReadOnlyList<TagInfo> For(string prefix, bool jacket) =>
+        (jacket ? Layout.Concat(JacketLayout) : Layout).Select(t => new TagInfo(prefix + "." + t.Suffix, t.Unit, t.Role, t.Description)).ToArray();
 
     /// <summary>The tag list with the prefix applied (e.g. R1.AIR.FLOW).</summary>
     public static IReadOnlyList<TagInfo> For(string prefix) =>

@@ -44,4 +44,10 @@ public sealed record ReactorTruth
     public double EvaporatedTotalL { get; init; }
     public double SampledTotalL { get; init; }
     public bool FaultActive { get; init; }
+    /// <summary>The culture's heat from its enthalpy balance, W (NaN without a jacket).</summary>
+    public double MetabolicHeatW { get; init; } = double.NaN;
+    /// <summary>The culture's P/O ratio (NaN without an energy budget).</summary>
+    public double PoRatio { get; init; } = double.NaN;
+    /// <summary>True overflow product rate, C-mmol/(L·h) (production &gt; 0).</summary>
+    public double OverflowCmmolPerLh { get; init; } = double.NaN;
 }

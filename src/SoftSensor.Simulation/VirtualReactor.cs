@@ -20,6 +20,9 @@ public sealed class VirtualReactor
     private readonly GaussianSource _tagNoise;
     private readonly GaussianSource _assayNoise;
     private readonly AnalyserDelay _delay;
+    private readonly JacketModel? _jacket;
+    private readonly GaussianSource _jacketNoise;
+    private readonly double _jacketFlowGain;
     private readonly Integrator _rk4 = new(S.Count);
     private readonly double[] _y = new double[S.Count];
     private readonly double[] _scratch = new double[S.Count];
@@ -48,7 +51,10 @@ public sealed class VirtualReactor
         _tagNoise = new GaussianSource(seeds.Next());
         _assayNoise = new GaussianSource(seeds.Next());
         _stepH = scenario.IntegrationStepS / 3600.0;
-        Tags = ReactorTags.For(scenario.TagPrefix);
+        Tags = ReactorTags.For(scenario.TagPrefix, scenario.Jacket is not null);
+        _jacket = scenario.Jacket is { } j ? new JacketModel(j, culture, scenario.Vessel.TemperatureC) : null;
+        _jacketNoise = new GaussianSource(seeds.Next());
+        _jacketFlowGain = 1 + (scenario.Jacket is { } jj ? _jacketNoise.Next(jj.FlowGainSd) : 0);
 
         var (_, yO2In, yCo2In, _) = _model.Inlet(0);
         double v = scenario.Vessel.InitialVolumeL;
@@ -100,13 +106,27 @@ public sealed class VirtualReactor
     }
 
     /// <summary>Current tag readings into <paramref name="values"/> (length ≥ Tags.Count), in <see cref="Tags"/> order; draws noise.</summary>
-    public void ReadTags(Span<double> values) =>
+    public void ReadTags(Span<double> values)
+    {
         TagReader.Read(values, this, _model, _errors, _tagNoise, _faults, _delay, ref _lastFeedReading);
+        if (_jacket is { } jacket)
+        {
+            var snap = _model.Evaluate(ElapsedH, _y, _scratch);
+            double met = jacket.MetabolicW(snap.Culture, _y[S.VolumeL]);
+            double cool = jacket.CoolantW(met, snap.EvaporationLPerH, snap.FeedLPerH);
+            var j = jacket.Spec;
+            int at = ReactorTags.Count;
+            values[at] = Math.Max(0, (j.CoolantFlowLPerH * _jacketFlowGain) + _jacketNoise.Next(j.FlowNoiseLPerH));
+            values[at + 1] = j.CoolantInletC + _jacketNoise.Next(j.TemperatureNoiseC);
+            values[at + 2] = jacket.OutletC(cool) + _jacketNoise.Next(j.TemperatureNoiseC);
+            values[at + 3] = Math.Max(0, j.StirrerPowerW + _jacketNoise.Next(j.PowerNoiseW));
+        }
+    }
 
     /// <summary>Current tag readings by name; draws noise.</summary>
     public IReadOnlyDictionary<string, double> ReadTags()
     {
-        Span<double> v = stackalloc double[ReactorTags.Count];
+        Span<double> v = stackalloc double[Tags.Count];
         ReadTags(v);
         var d = new Dictionary<string, double>(ReactorTags.Count, StringComparer.Ordinal);
         for (int i = 0; i < Tags.Count; i++)
@@ -128,7 +148,13 @@ public sealed class VirtualReactor
     public ReactorTruth Truth()
     {
         var snap = _model.Evaluate(ElapsedH, _y, _scratch);
-        return TruthBuilder.Build(this, snap, _y, CarbonRecovery(), InertImbalance(), _sampledL, _faults.AnyActive(ElapsedH));
+        var truth = TruthBuilder.Build(this, snap, _y, CarbonRecovery(), InertImbalance(), _sampledL, _faults.AnyActive(ElapsedH));
+        return truth with
+        {
+            MetabolicHeatW = _jacket?.MetabolicW(snap.Culture, _y[S.VolumeL]) ?? double.NaN,
+            PoRatio = _model.Culture.PoRatio,
+            OverflowCmmolPerLh = snap.Culture.OverflowCmmolPerLh,
+        };
     }
 
     private void StepOnce()

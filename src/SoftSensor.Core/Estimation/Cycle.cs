@@ -1,3 +1,4 @@
+using SoftSensor.Core.Flux;
 using SoftSensor.Core.Gas;
 using SoftSensor.Core.Signals;
 using SoftSensor.Core.Stoichiometry;
@@ -20,10 +21,20 @@ public sealed class Cycle
     private readonly BalanceStage _gasOnly;
     private readonly bool _ammonia;
     private readonly double _substrateGPerCmol;
+    private readonly PathwayStage? _pathway;
+    private readonly HeatBalanceStage? _heat;
+    private BalanceStage? _solved;
 
     /// <summary>Factors the balances of <paramref name="model"/> for the measured sets the settings imply.</summary>
     public Cycle(StoichiometricModel model, CycleSettings settings)
+        : this(model, settings, null)
     {
+    }
+
+    /// <summary>As <see cref="Cycle(StoichiometricModel, CycleSettings)"/>, and solves the pathway model <paramref name="pathway"/> every cycle (docs/pathway.md).</summary>
+    public Cycle(StoichiometricModel model, CycleSettings settings, PathwayStage? pathway, HeatBalanceSettings? heat = null)
+    {
+        _pathway = pathway;
         var errors = settings.Validate();
         if (errors.Count > 0)
         {
@@ -56,6 +67,7 @@ public sealed class Cycle
         _gasOnly = new BalanceStage(model, gasSet, settings.Alpha);
         _withSubstrate = settings.SubstrateFromFeed ? new BalanceStage(model, [.. gasSet, SubstrateId], settings.Alpha) : _gasOnly;
         _substrateGPerCmol = model[SubstrateId].MassGPerRateUnit;
+        _heat = heat is null ? null : new HeatBalanceStage(model, gasSet, settings.SubstrateFromFeed ? [.. gasSet, SubstrateId] : gasSet, heat, settings.Alpha);
         BiomassIndex = _gasOnly.IndexOf(BiomassId);
         SubstrateIndex = _gasOnly.IndexOf(SubstrateId);
     }
@@ -155,13 +167,28 @@ public sealed class Cycle
             GrowthQuality = SampleQuality.Bad,
         };
 
+        _solved = null;
         if (gas.Quality != SampleQuality.Bad && double.IsFinite(gas.OurMmolPerLh) && double.IsFinite(cer))
         {
             Reconcile(inputs, gas, cer, correctionSigma, v, ref rates);
         }
 
         EstimationStep.Run(inputs, volume, rates, state, est, outputs);
+        if (_pathway is not null)
+        {
+            PathwayStep.Run(_pathway, inputs, volume, gas.Covariance.OurCer, _settings, state, outputs);
+        }
+
+        if (_heat is not null)
+        {
+            var heat = outputs.Heat;
+            _heat.Run(inputs, v, gas.OutletFlowNlPerMin, _solved == _withSubstrate && _solved != _gasOnly, _solved is null ? default : _solved.Measured, _solved is null ? default : _solved.Covariance, ref heat);
+            outputs.Heat = heat;
+        }
     }
+
+    /// <summary>The pathway stage, or null when the reactor names no pathway model.</summary>
+    public PathwayStage? Pathway => _pathway;
 
     /// <summary>Applies an offline sample at its sampling time (see <see cref="OfflineSampleUpdate"/>).</summary>
     public OfflineSampleOutcome ApplyOfflineSample(EstimatorState state, in OfflineSample sample) =>
@@ -216,6 +243,7 @@ public sealed class Cycle
         }
 
         var outcome = stage.Solve();
+        _solved = stage;
         if (!outcome.HasRates)
         {
             return;

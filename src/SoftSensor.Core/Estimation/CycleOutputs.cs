@@ -59,6 +59,15 @@ public sealed class CycleOutputs
     /// <summary>The feed advisory.</summary>
     public FeedAdvice Feed { get; set; }
 
+    /// <summary>The pathway model's estimates (all NaN when the reactor names none).</summary>
+    public Flux.PathwayOutputs Pathway { get; set; } = Flux.PathwayOutputs.Empty;
+
+    /// <summary>The heat balance (not configured when the reactor has none).</summary>
+    public HeatOutputs Heat { get; set; } = HeatOutputs.Empty;
+
+    /// <summary>Id of the pathway model's overflow product (e.g. <c>ethanol</c>), or null without an overflow branch.</summary>
+    public string? OverflowProduct { get; set; }
+
     /// <summary>Worst quality over the frame.</summary>
     public SampleQuality Quality { get; set; }
 

@@ -20,7 +20,7 @@ public static class EstimateFrames
         var growth = r.GrowthQuality;
         var biomass = o.BiomassQuality;
         var feed = f.Limit == FeedLimit.None ? SampleQuality.Bad : biomass;
-        return
+        EstimateValue[] core =
         [
             Value(EstimateNames.Our, r.OurMmolPerLh, "mmol/(L·h)", r.OurSigmaMmolPerLh, gas),
             Value(EstimateNames.Cer, r.CerMmolPerLh, "mmol/(L·h)", r.CerSigmaMmolPerLh, gas),
@@ -36,6 +36,7 @@ public static class EstimateFrames
             Value(EstimateNames.FeedAdvisoryLPerH, f.AdvisedLPerH, "L/h", double.NaN, feed),
             Value(EstimateNames.FeedCapLPerH, Math.Min(f.OxygenCapLPerH, f.OverflowCapLPerH), "L/h", double.NaN, feed),
         ];
+        return PathwayFrames.Append(core, o);
     }
 
     /// <summary>The generic status code of a severity (OPC UA Part 4 §7.39: the top two bits).</summary>
@@ -46,7 +47,7 @@ public static class EstimateFrames
         _ => 0x80000000u,
     };
 
-    private static EstimateValue Value(string name, double value, string unit, double sigma, SampleQuality quality)
+    internal static EstimateValue Value(string name, double value, string unit, double sigma, SampleQuality quality)
     {
         var q = double.IsFinite(value) ? quality : SampleQuality.Bad;
         return new EstimateValue(name, value, unit, sigma, q, CodeOf(q));

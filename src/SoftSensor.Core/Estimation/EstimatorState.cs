@@ -55,6 +55,9 @@ public sealed class EstimatorState
     /// <summary>Offline samples applied.</summary>
     public long OfflineSamplesApplied { get; set; }
 
+    /// <summary>The pathway stage's energy parameters (docs/pathway.md §2).</summary>
+    public Flux.PathwayState Pathway { get; } = new();
+
     /// <summary>The last cycles (for late offline samples).</summary>
     public CycleHistory History { get; }
 

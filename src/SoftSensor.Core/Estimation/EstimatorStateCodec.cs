@@ -6,21 +6,23 @@ namespace SoftSensor.Core.Estimation;
 /// A versioned little-endian binary layout of <see cref="EstimatorState"/>: magic "SSES", layout
 /// version, the scalars, the batch's initial conditions (version 2; version 1 states, which have
 /// none, still read), the filtered inorganic carbon of the CER correction (version 3, in a slot
-/// reserved before), then the history ring (oldest first). Doubles are stored bit for bit, so a
+/// reserved before), then the history ring (oldest first), then the pathway stage's energy
+/// parameters and its statistic window (version 4). Doubles are stored bit for bit, so a
 /// resumed run continues exactly where the saved one stopped. The caller does the file I/O.
 /// </summary>
 public static class EstimatorStateCodec
 {
     /// <summary>Layout version written by this code.</summary>
-    public const ushort Version = 3;
+    public const ushort Version = 4;
 
     private const uint Magic = 0x53455353; // "SSES" read little-endian
     private const int HeaderBytes = 4 + 2 + 1 + (8 * 3) + (8 * 6) + (8 * 7) + 8 + 4 + 4;
     private const int InitialBytes = 1 + (8 * 4);
     private const int EntryBytes = 8 + (8 * 7) + (8 * 7);
+    private const int PathwayBytes = 1 + (8 * 4) + (4 * 3) + (Flux.PathwayState.WindowCapacity * (8 + 4));
 
     /// <summary>Bytes needed for <paramref name="state"/>.</summary>
-    public static int SizeOf(EstimatorState state) => HeaderBytes + InitialBytes + (state.History.Count * EntryBytes);
+    public static int SizeOf(EstimatorState state) => HeaderBytes + InitialBytes + (state.History.Count * EntryBytes) + PathwayBytes;
 
     /// <summary>Writes <paramref name="state"/> into a new array.</summary>
     public static byte[] Encode(EstimatorState state)
@@ -57,6 +59,21 @@ public static class EstimatorStateCodec
             w.States(e.States);
         }
 
+        var p = state.Pathway;
+        w.Byte(p.Initialised ? (byte)1 : (byte)0);
+        w.F64(p.PoRatio);
+        w.F64(p.PoVariance);
+        w.F64(p.MaintenanceAtp);
+        w.F64(p.MaintenanceVariance);
+        w.I32(p.GatedCycles);
+        w.I32(p.Next);
+        w.I32(p.Filled);
+        for (int i = 0; i < Flux.PathwayState.WindowCapacity; i++)
+        {
+            w.F64(p.Innovations[i]);
+            w.I32(p.InnovationDof[i]);
+        }
+
         return bytes;
     }
 
@@ -86,7 +103,8 @@ public static class EstimatorStateCodec
         double tic = r.F64();
         int capacity = r.I32(), count = r.I32();
         int initialBytes = version >= 2 ? InitialBytes : 0;
-        if (capacity < 2 || count < 0 || count > capacity || bytes.Length != HeaderBytes + initialBytes + ((long)count * EntryBytes))
+        int pathwayBytes = version >= 4 ? PathwayBytes : 0;
+        if (capacity < 2 || count < 0 || count > capacity || bytes.Length != HeaderBytes + initialBytes + ((long)count * EntryBytes) + pathwayBytes)
         {
             error = $"state history has capacity {capacity}, count {count} in {bytes.Length} bytes; the layout does not add up";
             return false;
@@ -110,6 +128,30 @@ public static class EstimatorStateCodec
         {
             var e = new HistoryEntry { TimeTicks = r.I64(), Inputs = r.Inputs(), States = r.States() };
             s.History.Push(e);
+        }
+
+        if (version >= 4)
+        {
+            var p = s.Pathway;
+            p.Initialised = r.Byte() == 1;
+            p.PoRatio = r.F64();
+            p.PoVariance = r.F64();
+            p.MaintenanceAtp = r.F64();
+            p.MaintenanceVariance = r.F64();
+            p.GatedCycles = r.I32();
+            p.Next = r.I32();
+            p.Filled = r.I32();
+            for (int i = 0; i < Flux.PathwayState.WindowCapacity; i++)
+            {
+                p.Innovations[i] = r.F64();
+                p.InnovationDof[i] = r.I32();
+            }
+
+            if (p.Next is < 0 or >= Flux.PathwayState.WindowCapacity || p.Filled is < 0 or > Flux.PathwayState.WindowCapacity)
+            {
+                error = $"state pathway window has next {p.Next}, filled {p.Filled}; expected 0 to {Flux.PathwayState.WindowCapacity}";
+                return false;
+            }
         }
 
         state = s;

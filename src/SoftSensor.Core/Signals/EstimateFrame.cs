@@ -55,4 +55,21 @@ public static class EstimateNames
     public const string FeedSetpointLPerH = "feed_setpoint_l_per_h";
     public const string FeedOverflowCapLPerH = "feed_overflow_cap_l_per_h";
     public const string OtrMax = "otr_max_mmol_per_l_h";
+
+    // The pathway model as a second estimator and the heat balance (docs/pathway.md).
+    public const string PathwayMuPerH = "pathway_mu_per_h";
+    public const string PathwayOur = "pathway_our";
+    public const string PathwayCer = "pathway_cer";
+    public const string PathwayStatistic = "pathway_h";
+    public const string PathwayCritical = "pathway_h_critical";
+    public const string PathwayOverflow = "pathway_overflow";
+    public const string PathwayOverflowPrefix = "pathway_overflow_";
+    public const string PoRatio = "po_ratio";
+    public const string MaintenanceAtp = "m_atp_mmol_per_g_h";
+    public const string HeatMetabolicW = "heat_metabolic_w";
+    public const string HeatOur = "heat_our";
+    public const string HeatStatistic = "heat_h";
+    public const string HeatCritical = "heat_h_critical";
+    public const string HeatRedundancy = "heat_redundancy";
+    public const string HeatIsolated = "heat_isolated";
 }

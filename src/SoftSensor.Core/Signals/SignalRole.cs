@@ -50,6 +50,17 @@ public enum SignalRole
 
     /// <summary>The controller's numeric phase code, mapped to a phase by the reactor's <c>batches:phaseCodes</c>; not an input of the cycle.</summary>
     BatchPhaseCode,
+
+    /// <summary>Jacket coolant flow, L/h (heat balance, docs/pathway.md §4).</summary>
+    CoolantFlowLPerH,
+    /// <summary>Jacket coolant inlet temperature, °C.</summary>
+    CoolantInletTemperatureC,
+    /// <summary>Jacket coolant outlet temperature, °C.</summary>
+    CoolantOutletTemperatureC,
+    /// <summary>Stirrer shaft power, W.</summary>
+    StirrerPowerW,
+    /// <summary>Stirrer speed, 1/min (the power then follows from the power number).</summary>
+    StirrerSpeedRpm,
 }
 
 /// <summary>Helpers on <see cref="SignalRole"/>.</summary>
@@ -59,7 +70,7 @@ public static class SignalRoles
     public static bool IsBatchRole(SignalRole role) => role is SignalRole.BatchId or SignalRole.BatchPhaseCode;
 
     /// <summary>Number of roles.</summary>
-    public const int Count = (int)SignalRole.BatchPhaseCode + 1;
+    public const int Count = (int)SignalRole.StirrerSpeedRpm + 1;
 
     /// <summary>The unit of a role's value, as shown to users.</summary>
     public static string UnitOf(SignalRole role) => role switch
@@ -69,7 +80,11 @@ public static class SignalRoles
         SignalRole.InletO2Percent or SignalRole.InletCo2Percent or SignalRole.OutletO2Percent
             or SignalRole.OutletCo2Percent or SignalRole.DissolvedOxygenPercent => "%",
         SignalRole.PressureKPa => "kPa",
-        SignalRole.TemperatureC or SignalRole.AnalyserTemperatureC => "°C",
+        SignalRole.TemperatureC or SignalRole.AnalyserTemperatureC or SignalRole.CoolantInletTemperatureC
+            or SignalRole.CoolantOutletTemperatureC => "°C",
+        SignalRole.CoolantFlowLPerH => "L/h",
+        SignalRole.StirrerPowerW => "W",
+        SignalRole.StirrerSpeedRpm => "1/min",
         SignalRole.LiquidVolumeL or SignalRole.RemovedVolumeL => "L",
         SignalRole.WeightKg => "kg",
         SignalRole.FeedRateLPerH or SignalRole.BaseRateLPerH => "L/h",

@@ -43,6 +43,15 @@ internal sealed class ReactorOptions
 
     /// <summary>Batch lifecycle from the plant: fed-batch detection, phase codes, initial conditions of tag-started batches.</summary>
     public ReactorBatchOptions Batches { get; set; } = new();
+
+    /// <summary>Pathway model file (the format <c>softsensor flux</c> reads) solved every cycle beside the elemental balance (docs/pathway.md); empty for none. Needs <see cref="ModelFile"/>.</summary>
+    public string PathwayModelFile { get; set; } = "";
+
+    /// <summary>The pathway stage's settings (overflow reaction, respiratory capacity, energy-parameter filter); used when <see cref="PathwayModelFile"/> is set.</summary>
+    public Core.Flux.PathwaySettings Pathway { get; set; } = new();
+
+    /// <summary>The jacket heat balance (docs/pathway.md §4); null for none. Needs the coolant flow and temperature roles and the stirrer power or speed.</summary>
+    public Core.Estimation.HeatBalanceSettings? Heat { get; set; }
 }
 
 /// <summary>

@@ -20,15 +20,20 @@ internal sealed class EstimatorCycle : IReactorCycle, Samples.IOfflineInputTarge
         SignalRole.FeedRateLPerH, SignalRole.BaseRateLPerH, SignalRole.WeightKg, SignalRole.DissolvedOxygenPercent,
     ];
 
+    private static readonly SignalRole[] HeatRoles =
+    [
+        SignalRole.CoolantFlowLPerH, SignalRole.CoolantInletTemperatureC, SignalRole.CoolantOutletTemperatureC, SignalRole.StirrerPowerW, SignalRole.StirrerSpeedRpm,
+    ];
+
     private readonly Cycle _cycle;
     private readonly GasInputs _gas;
     private readonly CycleOutputs _outputs = new();
     private EstimatorState _state;
 
-    public EstimatorCycle(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings, StoichiometricModel model)
+    public EstimatorCycle(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings, StoichiometricModel model, Core.Flux.PathwayStage? pathway = null)
     {
-        _gas = new GasInputs(reactor, bindings, EstimatorRoles);
-        _cycle = new Cycle(model, EstimatorSetup.Settings(_gas.Settings, reactor.Estimator, reactor.Balance));
+        _gas = new GasInputs(reactor, bindings, reactor.Heat is null ? EstimatorRoles : [.. EstimatorRoles, .. HeatRoles]);
+        _cycle = new Cycle(model, EstimatorSetup.Settings(_gas.Settings, reactor.Estimator, reactor.Balance), pathway, reactor.Heat);
         _state = _cycle.NewState();
     }
 
@@ -101,9 +106,46 @@ internal sealed class ReactorCycleFactory(ConfigLocation? location = null) : IRe
 
         try
         {
-            return new EstimatorCycle(reactor, bindings, model!);
+            return new EstimatorCycle(reactor, bindings, model!, Pathway(reactor, bindings));
         }
         catch (ArgumentException e)
+        {
+            throw new InvalidOperationException($"{key} '{path}': {e.Message}", e);
+        }
+    }
+
+    /// <summary>The pathway stage of <c>pathwayModelFile</c> (null when empty); checks the heat section's roles.</summary>
+    private Core.Flux.PathwayStage? Pathway(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings)
+    {
+        if (reactor.Heat is not null)
+        {
+            string hk = $"reactor '{reactor.Id}' heat";
+            bool Has(SignalRole r) => bindings.Any(b => b.Role == r);
+            var missing = new[] { SignalRole.CoolantFlowLPerH, SignalRole.CoolantInletTemperatureC, SignalRole.CoolantOutletTemperatureC }.Where(r => !Has(r)).ToList();
+            if (missing.Count > 0)
+            {
+                throw new InvalidOperationException($"{hk} is set; expected tags with the roles {string.Join(", ", missing)}");
+            }
+
+            if (!Has(SignalRole.StirrerPowerW) && !(Has(SignalRole.StirrerSpeedRpm) && !double.IsNaN(reactor.Heat.PowerNumber)))
+            {
+                throw new InvalidOperationException($"{hk} is set; expected a tag with role StirrerPowerW, or StirrerSpeedRpm with heat:powerNumber and heat:impellerDiameterM");
+            }
+        }
+
+        if (string.IsNullOrWhiteSpace(reactor.PathwayModelFile))
+        {
+            return null;
+        }
+
+        string key = $"reactor '{reactor.Id}' pathwayModelFile";
+        string path = Resolve(reactor.PathwayModelFile)
+            ?? throw new InvalidOperationException($"{key} is '{reactor.PathwayModelFile}'; expected an existing flux model file (looked beside the configuration file and upwards from the working folder)");
+        try
+        {
+            return new Core.Flux.PathwayStage(Core.Flux.FluxModel.Load(File.ReadAllText(path)), reactor.Pathway);
+        }
+        catch (Exception e) when (e is Core.Flux.FluxModelException or ArgumentException)
         {
             throw new InvalidOperationException($"{key} '{path}': {e.Message}", e);
         }

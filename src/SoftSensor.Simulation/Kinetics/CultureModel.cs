@@ -14,12 +14,17 @@ public sealed class CultureModel
 {
     private readonly CultureSpec _spec;
     private readonly double _qsMax;
+    private double _yield;
+    private double _maintenance;
 
     public CultureModel(CultureSpec spec)
     {
         _spec = spec;
         Substrate = CompoundInfo.Of(spec.Substrate.Name, spec.Substrate.Formula);
         Biomass = CompoundInfo.Of("biomass", spec.Biomass.Formula, spec.Biomass.AshFraction);
+        (_yield, _maintenance) = (spec.YieldGPerG, spec.MaintenanceGPerGH);
+        At(0);
+        spec = spec with { YieldGPerG = _yield, MaintenanceGPerGH = _maintenance };
         Byproduct = spec.Byproduct is { } b ? CompoundInfo.Of(b.Name, b.Formula) : null;
         Overflow = spec.Overflow is { } o ? CompoundInfo.Of(o.Name, o.Formula) : null;
         _qsMax = spec.Overflow is { } ov
@@ -35,6 +40,25 @@ public sealed class CultureModel
     internal CompoundInfo Biomass { get; }
     internal CompoundInfo? Byproduct { get; }
     internal CompoundInfo? Overflow { get; }
+
+    /// <summary>With an energy budget (<see cref="CultureSpec.Energetics"/>): sets the yield and maintenance of hour <paramref name="tH"/> (its P/O ratio may step).</summary>
+    internal void At(double tH)
+    {
+        if (_spec.Energetics is { } e)
+        {
+            PoRatio = CultureEnergetics.PoAt(e, tH);
+            (_yield, _maintenance) = CultureEnergetics.Pirt(e, PoRatio, Substrate, Biomass);
+        }
+    }
+
+    /// <summary>The culture's P/O ratio now (NaN without an energy budget).</summary>
+    public double PoRatio { get; private set; } = double.NaN;
+
+    /// <summary>The yield (g/g) and maintenance (g/(g·h)) in force now.</summary>
+    public double YieldGPerG => _yield;
+
+    /// <inheritdoc cref="YieldGPerG"/>
+    public double MaintenanceGPerGH => _maintenance;
 
     /// <summary>The largest specific substrate uptake rate, g/(g·h).</summary>
     public double QsMaxGPerGH => _qsMax;
@@ -52,7 +76,7 @@ public sealed class CultureModel
     public double OverflowGPerCmol => Overflow?.GramsPerCmol ?? double.NaN;
 
     /// <summary>Growth rate of the respiratory route at a specific uptake rate (Pirt).</summary>
-    private double MuAt(double qsGPerGH) => Math.Max(0, _spec.YieldGPerG * (qsGPerGH - _spec.MaintenanceGPerGH));
+    private double MuAt(double qsGPerGH) => Math.Max(0, _yield * (qsGPerGH - _maintenance));
 
     /// <summary>Rates at biomass x, substrate s, overflow product p (g/L) and dissolved O2 c (mmol/L).</summary>
     public CultureRates Evaluate(double xGPerL, double sGPerL, double pGPerL, double o2MmolPerL)

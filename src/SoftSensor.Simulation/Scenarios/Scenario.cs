@@ -31,6 +31,8 @@ public sealed record Scenario
     public InstrumentSpec Instruments { get; init; } = new();
     public IReadOnlyList<FaultSpec> Faults { get; init; } = [];
     public SamplingSpec Samples { get; init; } = new();
+    /// <summary>The cooling jacket and stirrer (null: no jacket tags).</summary>
+    public JacketSpec? Jacket { get; init; }
 }
 
 /// <summary>The vessel and its controlled conditions.</summary>
@@ -75,6 +77,8 @@ public sealed record CultureSpec
     public double OxygenKsMmolPerL { get; init; } = 0.01;
     public ByproductSpec? Byproduct { get; init; }
     public OverflowSpec? Overflow { get; init; }
+    /// <summary>The culture's own energy budget (null: the yield and maintenance above).</summary>
+    public EnergeticsSpec? Energetics { get; init; }
 }
 
 /// <summary>A named compound with its elemental formula.</summary>

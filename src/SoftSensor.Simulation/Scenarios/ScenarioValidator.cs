@@ -54,6 +54,19 @@ internal static class ScenarioValidator
         ValidateInstruments(e, s.Instruments);
         ValidateFaults(e, s);
         ValidateSamples(e, s);
+        if (s.Jacket is { } j)
+        {
+            Positive(e, "jacket.coolant_flow_l_per_h", j.CoolantFlowLPerH);
+            Range(e, "jacket.coolant_inlet_c", j.CoolantInletC, 0, s.Vessel.TemperatureC);
+            NonNegative(e, "jacket.stirrer_power_w", j.StirrerPowerW);
+            NonNegative(e, "jacket.loss_w_per_k", j.LossWPerK);
+            Positive(e, "jacket.biomass_kj_per_electron_mol", j.BiomassKjPerElectronMol);
+            NonNegative(e, "jacket.temperature_noise_c", j.TemperatureNoiseC);
+            NonNegative(e, "jacket.flow_gain_sd", j.FlowGainSd);
+            NonNegative(e, "jacket.flow_noise_l_per_h", j.FlowNoiseLPerH);
+            NonNegative(e, "jacket.power_noise_w", j.PowerNoiseW);
+        }
+
         return e;
     }
 
@@ -91,6 +104,20 @@ internal static class ScenarioValidator
             if (c.Byproduct is { } b2 && string.Equals(b2.Name, o.Name, StringComparison.Ordinal))
             {
                 e.Add($"key 'culture.overflow.name' is '{o.Name}': expected a name different from culture.byproduct.name");
+            }
+        }
+
+        if (c.Energetics is { } en)
+        {
+            Range(e, "culture.energetics.po_ratio", en.PoRatio, 0.3, 3.5);
+            Range(e, "culture.energetics.atp_per_biomass_cmol", en.AtpPerBiomassCmol, 0.5, 10);
+            NonNegative(e, "culture.energetics.maintenance_atp_mmol_per_g_h", en.MaintenanceAtpMmolPerGH);
+            Range(e, "culture.energetics.substrate_level_atp_per_cmol", en.SubstrateLevelAtpPerCmol, 0, 2);
+            Range(e, "culture.energetics.anabolic_co2_per_biomass_cmol", en.AnabolicCo2PerBiomassCmol, 0, 1);
+            for (int i = 0; i < en.PoSteps.Count; i++)
+            {
+                NonNegative(e, $"culture.energetics.po_steps[{i}].at_h", en.PoSteps[i].AtH);
+                Range(e, $"culture.energetics.po_steps[{i}].po_ratio", en.PoSteps[i].PoRatio, 0.3, 3.5);
             }
         }
 

@@ -147,6 +147,7 @@ internal sealed class ReactorModel
         double yO2 = y[S.HeadspaceO2];
         double yCo2 = y[S.HeadspaceCo2];
 
+        Culture.At(tH);
         var r = Culture.Evaluate(x, sub, prod, c);
         double feed = _schedule.FeedLPerH(tH);
         double baseMolPerH = Math.Max(0, r.AmmoniaUptakeMmolPerLh + r.AcidMmolPerLh) * v / 1000.0;

@@ -60,9 +60,10 @@ public class BatchInitialConditionsTests
         Assert.True(EstimatorStateCodec.TryDecode(EstimatorStateCodec.Encode(state), out var back, out var error), error);
         Assert.Equal(state.Initial, back!.Initial);
 
-        // A version 1 state is the version 2 layout without the 33 bytes of initial conditions after the history header.
+        // A version 1 state is the version 2 layout without the 33 bytes of initial conditions after the history header
+        // (and without version 4's pathway block at the end: 1 + 4 × 8 + 3 × 4 + 64 × (8 + 4) = 813 bytes).
         var v2 = EstimatorStateCodec.Encode(new EstimatorState(8));
-        int header = v2.Length - 33;
+        int header = v2.Length - 33 - 813;
         var v1 = v2[..header];
         v1[4] = 1;
         v1[5] = 0;
