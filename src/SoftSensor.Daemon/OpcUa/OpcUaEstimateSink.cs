@@ -31,7 +31,7 @@ internal sealed class OpcUaEstimateSink(IOptions<OpcUaOptions> options, OpcUaWri
         {
             if (map.TryGetValue(v.Name, out var node))
             {
-                items.Add((new NodeReference(node), ToDataValue(v, frame.SourceTime)));
+                items.Add((new NodeReference(node), ToDataValue(v, frame.Time)));
                 names.Add(v.Name);
             }
         }

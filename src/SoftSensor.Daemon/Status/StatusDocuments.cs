@@ -39,7 +39,7 @@ internal static class StatusDocuments
         s.Cycle,
         s.CycleTime,
         EstimatePayload.Name(s.Frame?.Quality ?? SampleQuality.Bad),
-        s.Frame?.SourceTime,
+        s.Frame?.InputTime,
         s.Frame?.Values.Select(v => new EstimateDoc(v.Name, Finite(v.Value), v.Unit, Finite(v.Sigma), EstimatePayload.Name(v.Quality), v.StatusCode)).ToList() ?? [],
         s.Inputs.Select(i => new InputDoc(
             i.Tag,

@@ -108,12 +108,14 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             using var tx = _writer.BeginTransaction();
             using var f = _writer.CreateCommand();
             f.Transaction = tx;
-            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase) VALUES ($r, $b, $t, $q, $p) RETURNING id";
+            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase, input_ms, reason) VALUES ($r, $b, $t, $q, $p, $i, $w) RETURNING id";
             var fr = f.Parameters.Add("$r", SqliteType.Text);
             var fb = f.Parameters.Add("$b", SqliteType.Text);
             var ft = f.Parameters.Add("$t", SqliteType.Integer);
             var fq = f.Parameters.Add("$q", SqliteType.Integer);
             var fp = f.Parameters.Add("$p", SqliteType.Text);
+            var fi = f.Parameters.Add("$i", SqliteType.Integer);
+            var fw = f.Parameters.Add("$w", SqliteType.Text);
             f.Prepare();
             using var e = _writer.CreateCommand();
             e.Transaction = tx;
@@ -131,12 +133,14 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             for (int k = 0; k < frames.Count; k++)
             {
                 var frame = frames[k];
-                long ms = frame.SourceTime.ToUnixTimeMilliseconds();
+                long ms = frame.Time.ToUnixTimeMilliseconds();
                 fr.Value = frame.Reactor;
                 fb.Value = frame.BatchId;
                 ft.Value = ms;
                 fq.Value = (int)frame.Quality;
                 fp.Value = frame.Phase;
+                fi.Value = frame.InputTime is { } input ? input.ToUnixTimeMilliseconds() : DBNull.Value;
+                fw.Value = frame.Reason;
                 long id = (long)f.ExecuteScalar()!;
                 ids[k] = id;
                 pf.Value = id;
