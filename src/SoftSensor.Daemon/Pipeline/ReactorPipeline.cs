@@ -163,7 +163,7 @@ internal sealed partial class ReactorPipeline : ISampleIntake
 
         var frame = Compute(frameTime, batchId) with { Phase = open?.Phase ?? string.Empty };
         long n = Interlocked.Increment(ref _cycles);
-        _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
+        _services.Board.Publish(new ReactorSnapshot(Reactor, n, frameTime, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);
         _services.Metrics.Cycles.Add(1, _reactorTag);
         _services.Metrics.CycleSeconds.Record(Stopwatch.GetElapsedTime(start).TotalSeconds, _reactorTag);

@@ -34,10 +34,10 @@ internal static class StatusEndpoints
 
     public static void MapStatusEndpoints(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time) =>
-            Results.Content(StatusPage.With(JsonSerializer.Serialize(Current(board, link, o.Value, time), Json)), "text/html; charset=utf-8"));
-        app.MapGet("/api/status", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time) =>
-            Results.Json(Current(board, link, o.Value, time), Json));
+        app.MapGet("/", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time, Store.StoreHealth health) =>
+            Results.Content(StatusPage.With(JsonSerializer.Serialize(Current(board, link, o.Value, time, health), Json)), "text/html; charset=utf-8"));
+        app.MapGet("/api/status", (StatusBoard board, MqttLink link, IOptions<SoftSensorOptions> o, TimeProvider time, Store.StoreHealth health) =>
+            Results.Json(Current(board, link, o.Value, time, health), Json));
         app.MapGet("/api/trends", TrendsAsync);
         app.MapGet("/api/estimates", EstimatesAsync);
         app.MapGet("/api/alarms", async (SqliteStore store, CancellationToken ct) =>
@@ -45,8 +45,8 @@ internal static class StatusEndpoints
         app.MapGet("/metrics", (PrometheusExporter exporter) => Results.Text(exporter.Render(), PrometheusExporter.ContentType));
     }
 
-    private static DaemonDoc Current(StatusBoard board, MqttLink link, SoftSensorOptions o, TimeProvider time) =>
-        new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(), board.All.Select(Reactor).ToList());
+    private static DaemonDoc Current(StatusBoard board, MqttLink link, SoftSensorOptions o, TimeProvider time, Store.StoreHealth health) =>
+        new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(), board.All.Select(Reactor).ToList()) { Store = StatusDocuments.Store(health) };
 
     private static async Task<IResult> TrendsAsync(string? reactor, double? hours, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, CancellationToken ct)
     {

@@ -40,6 +40,7 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         _connectionString = new SqliteConnectionStringBuilder { DataSource = full, Pooling = true }.ToString();
         _writer = new SqliteConnection(_connectionString);
         _writer.Open();
+        EnsureIncrementalVacuum(_writer);
         Execute(_writer, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON; PRAGMA busy_timeout=5000;");
         Execute(_writer, StoreSchema.Create);
         foreach (var (table, column, sql) in StoreSchema.AddedColumns)

@@ -178,6 +178,44 @@ internal sealed class OutboxStore : IDisposable
         }
     }
 
+    /// <summary>
+    /// Retention (<c>store:retention</c>): removes at most <paramref name="limit"/> of the oldest unsent
+    /// rows committed before <paramref name="cutoff"/>, in one short transaction; returns how many.
+    /// </summary>
+    public int DropOlderThan(DateTimeOffset cutoff, int limit)
+    {
+        lock (_gate)
+        {
+            if (_oldestMs is not { } oldest || oldest >= cutoff.ToUnixTimeMilliseconds())
+            {
+                return 0;
+            }
+
+            using var tx = _db.BeginTransaction();
+            using var cmd = _db.CreateCommand();
+            cmd.Transaction = tx;
+            cmd.CommandText = "DELETE FROM ts_outbox WHERE id IN (SELECT id FROM ts_outbox WHERE enqueued_ms < $c ORDER BY id LIMIT $n) RETURNING bytes;";
+            cmd.Parameters.AddWithValue("$c", cutoff.ToUnixTimeMilliseconds());
+            cmd.Parameters.AddWithValue("$n", limit);
+            int removed = 0;
+            long bytes = 0;
+            using (var r = cmd.ExecuteReader())
+            {
+                while (r.Read())
+                {
+                    removed++;
+                    bytes += r.GetInt64(0);
+                }
+            }
+
+            tx.Commit();
+            _depth -= removed;
+            _bytes -= bytes;
+            RefreshOldest();
+            return removed;
+        }
+    }
+
     /// <summary>Counts a failed attempt on a batch (kept for diagnosis).</summary>
     public void RecordAttempt(IReadOnlyList<OutboxEntry> batch)
     {
