@@ -64,6 +64,11 @@ internal sealed class DemoVerb : IVerb
 
         var scenario = ScenarioLoader.Load(scenarioPath);
         var runFor = simFor ?? TimeSpan.FromHours(scenario.DurationH);
+        if (runFor > TimeSpan.FromHours(scenario.DurationH))
+        {
+            return CliOutput.BadInput(Console.Error, string.Create(CultureInfo.InvariantCulture,
+                $"--for is '{forText}': past the demo scenario's duration_h {scenario.DurationH} h ({Path.GetFileName(scenarioPath)}); the virtual culture is not defined beyond it"));
+        }
         string store = Path.GetFullPath(Path.Combine(dataDir, "demo.db"));
         Directory.CreateDirectory(Path.GetDirectoryName(store)!);
         foreach (var f in new[] { store, store + "-wal", store + "-shm" })

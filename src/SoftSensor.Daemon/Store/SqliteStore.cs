@@ -24,15 +24,21 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     private readonly string _connectionString;
     private readonly TimeProvider _time;
     private readonly ITimer _checkpointer;
+    private readonly int _checkpointsKept;
     private IFrameCompanion[] _companions = [];
 
     public SqliteStore(IOptions<SoftSensorOptions> options, TimeProvider time)
-        : this(options.Value.Store.Path, time)
+        : this(options.Value.Store.Path, time, options.Value.Store.CheckpointsKept)
     {
     }
 
-    public SqliteStore(string path, TimeProvider time)
+    /// <param name="path">The database file.</param>
+    /// <param name="time">The process clock (outbox cursor times).</param>
+    /// <param name="checkpointsKept">Checkpoints kept per reactor; older ones are deleted as a new one is written.</param>
+    public SqliteStore(string path, TimeProvider time, int checkpointsKept = 3)
     {
+        ArgumentOutOfRangeException.ThrowIfLessThan(checkpointsKept, 1);
+        _checkpointsKept = checkpointsKept;
         _time = time;
         string full = System.IO.Path.GetFullPath(path);
         Directory.CreateDirectory(System.IO.Path.GetDirectoryName(full)!);
@@ -219,7 +225,17 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);
             c.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
             c.Parameters.AddWithValue("$s", checkpoint.State);
+            using var tx = _writer.BeginTransaction();
+            c.Transaction = tx;
             c.ExecuteNonQuery();
+            // Only the newest few are kept (store:checkpointsKept): a resume reads the newest.
+            using var prune = _writer.CreateCommand();
+            prune.Transaction = tx;
+            prune.CommandText = "DELETE FROM checkpoints WHERE reactor = $r AND id <= (SELECT id FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1 OFFSET $k)";
+            prune.Parameters.AddWithValue("$r", checkpoint.Reactor);
+            prune.Parameters.AddWithValue("$k", _checkpointsKept);
+            prune.ExecuteNonQuery();
+            tx.Commit();
         }
         finally
         {
