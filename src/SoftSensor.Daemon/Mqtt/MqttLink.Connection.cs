@@ -7,7 +7,6 @@ using Microsoft.Extensions.Options;
 using MQTTnet;
 using MQTTnet.Protocol;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Status;
 
 namespace SoftSensor.Daemon.Mqtt;
 
