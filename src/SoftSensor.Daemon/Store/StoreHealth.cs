@@ -15,7 +15,7 @@ internal sealed class StoreHealth
 
     public StoreHealth(IMeterFactory meters)
     {
-        var meter = meters.Create(Status.DaemonMetrics.MeterName);
+        var meter = meters.Create(Contracts.DaemonMetrics.MeterName);
         meter.CreateObservableGauge("softsensor_store_bytes", () => Current.StoreBytes, "By", "Size of the embedded store on disk (database file and write-ahead log)");
         meter.CreateObservableGauge("softsensor_disk_free_bytes", () => Current.FreeBytes == long.MaxValue ? 0 : Current.FreeBytes, "By", "Free space on the file system that holds the store");
         meter.CreateObservableGauge("softsensor_store_pruned_frames_total", () => Current.PrunedFrames, "{frame}", "Frames deleted by retention since start (and, when the disk is low, the oldest beyond it)");

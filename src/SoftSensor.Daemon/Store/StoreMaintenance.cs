@@ -2,7 +2,6 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Timeseries;
 
 namespace SoftSensor.Daemon.Store;
 
@@ -16,7 +15,7 @@ namespace SoftSensor.Daemon.Store;
 /// oldest day of frames per pass, never its newest day: the newest data are kept.
 /// </summary>
 internal sealed class StoreMaintenance(
-    SqliteStore store, StoreHealth health, IOptions<SoftSensorOptions> options, TimeProvider time, ILogger<StoreMaintenance> log, IServiceProvider services)
+    SqliteStore store, StoreHealth health, IOptions<SoftSensorOptions> options, TimeProvider time, ILogger<StoreMaintenance> log, IEnumerable<IRetainedRows> retained)
     : BackgroundService
 {
     /// <summary>Frames deleted per transaction (each with its estimates).</summary>
@@ -25,7 +24,7 @@ internal sealed class StoreMaintenance(
     /// <summary>Free pages given back per vacuum step.</summary>
     private const int VacuumPages = 2048;
 
-    private readonly OutboxStore? _outbox = (OutboxStore?)services.GetService(typeof(OutboxStore));
+    private readonly IRetainedRows[] _retained = [.. retained];
     private long _prunedFrames;
     private long _prunedCheckpoints;
 
@@ -67,9 +66,12 @@ internal sealed class StoreMaintenance(
             deleted += await DeleteBeforeAsync(reactor, cutoff, cancellationToken);
         }
 
-        while (_outbox is not null && _outbox.DropOlderThan(cutoff, BatchFrames) > 0)
+        foreach (var rows in _retained)
         {
-            await Task.Yield();
+            while (rows.DropOlderThan(cutoff, BatchFrames) > 0)
+            {
+                await Task.Yield();
+            }
         }
 
         var reading = Measure(o);

@@ -18,7 +18,7 @@ internal readonly record struct OutboxStats(long Depth, long Bytes, DateTimeOffs
 /// acknowledged them. The unsent payload is bounded; a frame beyond the bound is refused.
 /// Threading: every method may be called from any thread (one connection behind a lock).
 /// </summary>
-internal sealed class OutboxStore : IDisposable
+internal sealed class OutboxStore : Store.IRetainedRows, IDisposable
 {
     private readonly Lock _gate = new();
     private readonly SqliteConnection _db;

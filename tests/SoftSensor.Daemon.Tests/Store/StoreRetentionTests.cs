@@ -5,7 +5,7 @@ using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Time.Testing;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 using SoftSensor.Daemon.Store;
 
 namespace SoftSensor.Daemon.Tests.Store;
@@ -38,7 +38,7 @@ public sealed class StoreRetentionTests : IDisposable
         o.Store.Retention = TimeSpan.FromDays(2);
         adjust?.Invoke(o.Store);
         var health = new StoreHealth(_sp.GetRequiredService<IMeterFactory>());
-        return (new StoreMaintenance(store, health, Microsoft.Extensions.Options.Options.Create(o), time, NullLogger<StoreMaintenance>.Instance, _sp), health);
+        return (new StoreMaintenance(store, health, Microsoft.Extensions.Options.Options.Create(o), time, NullLogger<StoreMaintenance>.Instance, []), health);
     }
 
     private static async Task WriteDaysAsync(SqliteStore store, string reactor, int days, TimeSpan step)
