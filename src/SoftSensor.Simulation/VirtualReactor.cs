@@ -92,10 +92,22 @@ public sealed class VirtualReactor
     /// <summary>Creates a reactor at the scenario's start; <paramref name="seed"/> fixes instrument errors and noise.</summary>
     public static VirtualReactor Create(Scenario scenario, int seed) => new(scenario, seed);
 
-    /// <summary>Advances by <paramref name="duration"/> in fixed steps; a remainder shorter than a step carries over to the next call.</summary>
+    /// <summary>
+    /// Advances by <paramref name="duration"/> in fixed steps; a remainder shorter than a step carries over to the next call.
+    /// Refuses (<see cref="InvalidOperationException"/>, nothing stepped) a horizon past the scenario's
+    /// <c>duration_h</c>: beyond it the feed goes on filling the vessel until the headspace vanishes and the
+    /// model has no meaning (it used to return NaN there). A longer run starts a new batch (<see cref="Create"/>).
+    /// </summary>
     public void Step(TimeSpan duration)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(duration, TimeSpan.Zero);
+        double toH = ElapsedH + ((_pendingS + duration.TotalSeconds) / 3600.0);
+        if (toH > Scenario.DurationH + _stepH)
+        {
+            throw new InvalidOperationException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"scenario '{Scenario.Name}' covers {Scenario.DurationH} h (duration_h); stepping to {toH:F3} h is past it (the virtual culture is not defined there): start a new batch with VirtualReactor.Create"));
+        }
+
         _pendingS += duration.TotalSeconds;
         int step = Scenario.IntegrationStepS;
         while (_pendingS >= step - 1e-9)

@@ -31,7 +31,7 @@ public sealed class AlarmSnapshot
     /// <summary>Adds every estimate of a frame and sets <see cref="Time"/> to the frame's source time.</summary>
     public void AddFrame(EstimateFrame frame)
     {
-        Time = frame.SourceTime;
+        Time = frame.Time;
         foreach (var v in frame.Values)
         {
             Set(SignalRef.Estimate(v.Name), v.Value, v.Quality);

@@ -11,16 +11,28 @@ public readonly record struct EstimateValue(string Name, double Value, string Un
 
 /// <summary>
 /// Everything one cycle of one reactor produced, flattened for the sinks (store, time-series
-/// database, MQTT, OPC UA write-back, status page). <see cref="SourceTime"/> is the newest input
-/// timestamp the cycle used; <see cref="Quality"/> the worst over the frame's inputs.
+/// database, MQTT, OPC UA write-back, status page). <see cref="Time"/> is the cycle's scheduled
+/// time: strictly increasing per reactor (also across restarts), whole milliseconds, the one
+/// timestamp every sink writes, so no two frames of a reactor share a time and a time-series
+/// database keeps every one. The inputs' own times travel beside it as data (<see cref="InputTime"/>,
+/// <see cref="InputAge"/>). <see cref="Quality"/> is the worst over the frame's inputs.
 /// </summary>
 public sealed record EstimateFrame(
     string Reactor,
     string BatchId,
-    DateTimeOffset SourceTime,
+    DateTimeOffset Time,
     SampleQuality Quality,
     IReadOnlyList<EstimateValue> Values)
 {
+    /// <summary>The newest input source timestamp the cycle used; null when it used none (no input fresh).</summary>
+    public DateTimeOffset? InputTime { get; init; }
+
+    /// <summary>How old the newest input was at the frame's time (<see cref="Time"/> − <see cref="InputTime"/>); null when no input was used.</summary>
+    public TimeSpan? InputAge => InputTime is { } t ? Time - t : null;
+
+    /// <summary>Why the frame is Bad when no value could be computed (e.g. no input fresh); empty otherwise.</summary>
+    public string Reason { get; init; } = "";
+
     /// <summary>The batch's phase at this cycle (an id of <see cref="Batches.BatchPhases"/>; empty when no batch is open).</summary>
     public string Phase { get; init; } = "";
 }

@@ -63,13 +63,13 @@ internal sealed class AlarmEngine
     /// <summary>Evaluates the rules of a frame's reactor on the frame, its inputs and further signals.</summary>
     public AlarmChanges Evaluate(EstimateFrame frame, Action<AlarmSnapshot>? addSignals)
     {
-        var r = Get(frame.Reactor, frame.SourceTime);
+        var r = Get(frame.Reactor, frame.Time);
         lock (r)
         {
             r.Buffer.Clear();
             string? previous = r.Batch;
             bool newBatch = previous != frame.BatchId;
-            int reset = newBatch && previous is not null ? r.Evaluator.BeginBatch(frame.SourceTime, r.Buffer) : 0;
+            int reset = newBatch && previous is not null ? r.Evaluator.BeginBatch(frame.Time, r.Buffer) : 0;
             r.Batch = frame.BatchId;
             r.Snapshot.Clear();
             r.Snapshot.AddFrame(frame);

@@ -73,6 +73,7 @@ internal static class AlarmServices
         services.AddSingleton<AlarmInputSignals>();
         services.AddSingleton<IAlarmSignalSource>(sp => sp.GetRequiredService<AlarmInputSignals>());
         services.AddSingleton<IAlarmSignalSource, OutboxFillSignal>();
+        services.AddSingleton<IAlarmSignalSource, DiskSpaceSignal>();
         services.AddSingleton<IAlarmPublisher, StoreAlarmMirror>();
         services.AddSingleton<IAlarmPublisher, MqttAlarmPublisher>();
         services.AddSingleton<AlarmService>();

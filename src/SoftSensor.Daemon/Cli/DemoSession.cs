@@ -40,6 +40,12 @@ internal static class DemoSession
         }
 
         var runFor = request.For ?? TimeSpan.FromHours(scenario.DurationH);
+        if (runFor > TimeSpan.FromHours(scenario.DurationH))
+        {
+            return CliOutput.BadInput(error, string.Create(CultureInfo.InvariantCulture,
+                $"--for is {runFor}: past the scenario's duration_h {scenario.DurationH} h ({Path.GetFileName(scenarioPath)}); the virtual culture is not defined beyond it"));
+        }
+
         string store = Path.Combine(request.DataDir, "demo.db");
         foreach (var f in new[] { store, store + "-wal", store + "-shm" })
         {

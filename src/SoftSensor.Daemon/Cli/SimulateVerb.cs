@@ -47,6 +47,11 @@ internal sealed class SimulateVerb : IVerb
             return CliOutput.BadInput(error, e.Message);
         }
 
+        if (hours is { } past && past > scenario.DurationH)
+        {
+            return CliOutput.BadInput(error, $"--hours is {past.ToString(CultureInfo.InvariantCulture)}: past the scenario's duration_h {scenario.DurationH.ToString(CultureInfo.InvariantCulture)} (the virtual culture is not defined beyond its scenario; lengthen duration_h in the scenario file)");
+        }
+
         SimulationSummary summary;
         try
         {

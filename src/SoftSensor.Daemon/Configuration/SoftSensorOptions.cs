@@ -40,6 +40,21 @@ internal sealed class StoreOptions
 
     /// <summary>A state checkpoint is written every this many cycles (and on stop).</summary>
     public int CheckpointEveryCycles { get; set; } = 10;
+
+    /// <summary>
+    /// How long frames, their estimates and unsent outbox rows are kept (older ones are deleted in small
+    /// batches off the cycle path). Default 365 days: about 3 GB per reactor at a 10 s cycle (docs/store.md).
+    /// </summary>
+    public TimeSpan Retention { get; set; } = TimeSpan.FromDays(365);
+
+    /// <summary>Checkpoints kept per reactor (the newest; a resume needs one, the others cover a torn last write).</summary>
+    public int CheckpointsKept { get; set; } = 3;
+
+    /// <summary>Below this much free space on the store's disk the daemon raises <c>disk_low</c> and deletes the oldest data first, keeping the newest.</summary>
+    public double MinFreeDiskMegabytes { get; set; } = 1024;
+
+    /// <summary>Seconds (real time) between two maintenance passes: retention, checkpoint pruning, incremental vacuum, disk check.</summary>
+    public double MaintenanceIntervalSeconds { get; set; } = 60;
 }
 
 /// <summary>Section <c>status</c>: the status page and metrics endpoint.</summary>

@@ -78,12 +78,37 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"store:checkpointEveryCycles is {options.Store.CheckpointEveryCycles} (expected 1 or more)");
         }
 
+        ValidateRetention(errors, options.Store);
+
         if (!Uri.TryCreate(options.Status.Url, UriKind.Absolute, out var url) || url.Scheme != Uri.UriSchemeHttp)
         {
             errors.Add($"status:url is '{options.Status.Url}' (expected an http:// URL such as http://127.0.0.1:8470)");
         }
 
         return errors.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(errors);
+    }
+
+    private static void ValidateRetention(List<string> errors, StoreOptions store)
+    {
+        if (store.Retention < TimeSpan.FromDays(1))
+        {
+            errors.Add($"store:retention is {store.Retention} (expected 1 day or more, e.g. 365.00:00:00)");
+        }
+
+        if (store.CheckpointsKept < 1)
+        {
+            errors.Add($"store:checkpointsKept is {store.CheckpointsKept} (expected 1 or more)");
+        }
+
+        if (!double.IsFinite(store.MinFreeDiskMegabytes) || store.MinFreeDiskMegabytes < 0)
+        {
+            errors.Add($"store:minFreeDiskMegabytes is {store.MinFreeDiskMegabytes.ToString(System.Globalization.CultureInfo.InvariantCulture)} (expected 0 or more megabytes)");
+        }
+
+        if (!double.IsFinite(store.MaintenanceIntervalSeconds) || store.MaintenanceIntervalSeconds is < 0.01 or > 86_400)
+        {
+            errors.Add($"store:maintenanceIntervalSeconds is {store.MaintenanceIntervalSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture)} (expected 0.01 to 86400 seconds)");
+        }
     }
 
     private static void ValidateTag(List<string> errors, string key, TagOptions t, HashSet<SignalRole> roles, Dictionary<string, string> topics)

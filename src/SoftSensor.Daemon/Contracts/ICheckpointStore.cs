@@ -18,6 +18,9 @@ internal interface ICheckpointStore
     /// <summary>The newest checkpoint of a reactor, or null.</summary>
     ValueTask<Checkpoint?> LatestCheckpointAsync(string reactor, CancellationToken cancellationToken);
 
+    /// <summary>The time of the newest frame stored for a reactor, or null (a restarted pipeline stamps its frames after it).</summary>
+    ValueTask<DateTimeOffset?> LatestFrameTimeAsync(string reactor, CancellationToken cancellationToken);
+
     /// <summary>Writes a checkpoint durably before returning.</summary>
     ValueTask WriteCheckpointAsync(Checkpoint checkpoint, CancellationToken cancellationToken);
 }

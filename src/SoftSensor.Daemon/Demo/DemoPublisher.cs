@@ -44,9 +44,12 @@ internal sealed class DemoPublisher
         var interval = TimeSpan.FromSeconds(_reactor.Scenario.OutputIntervalS);
         var values = new double[_reactor.Tags.Count];
         using var timer = new PeriodicTimer(interval, _clock);
+        // The culture is defined up to the scenario's end; a clock past it (the last moments of a run) holds the last state.
+        var end = _reactor.Scenario.StartTime + TimeSpan.FromHours(_reactor.Scenario.DurationH);
         do
         {
-            var lag = _clock.GetUtcNow() - _reactor.Time;
+            var now = _clock.GetUtcNow();
+            var lag = (now < end ? now : end) - _reactor.Time;
             if (lag > TimeSpan.Zero)
             {
                 _reactor.Step(lag);

@@ -38,6 +38,8 @@ internal static class DaemonServices
 
         services.AddSingleton<SqliteStore>();
         services.AddSingleton<ICheckpointStore>(sp => sp.GetRequiredService<SqliteStore>());
+        services.AddSingleton<StoreHealth>();
+        services.AddHostedService<StoreMaintenance>();
         services.AddBatches();
         Samples.SampleEndpoints.AddOperatorSamples(services);
 

@@ -60,7 +60,7 @@ internal sealed class MqttEstimateSink(MqttLink link, MqttTopics topics) : IEsti
             {
                 foreach (var v in frame.Values)
                 {
-                    await PublishAsync(topics.Estimate(frame.Reactor, v.Name), EstimatePayload.Encode(v, frame.SourceTime), cancellationToken);
+                    await PublishAsync(topics.Estimate(frame.Reactor, v.Name), EstimatePayload.Encode(v, frame.Time, frame.InputAge), cancellationToken);
                 }
             }
         }
@@ -120,6 +120,6 @@ internal sealed class MqttEstimateSink(MqttLink link, MqttTopics topics) : IEsti
     {
         batchId = frame.BatchId,
         phase = frame.Phase,
-        timestamp = frame.SourceTime.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", System.Globalization.CultureInfo.InvariantCulture),
+        timestamp = frame.Time.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", System.Globalization.CultureInfo.InvariantCulture),
     });
 }

@@ -33,7 +33,7 @@ internal sealed class OpcUaEstimateSink(IOptions<OpcUaOptions> options, OpcUaWri
         {
             if (map.TryGetValue(v.Name, out var node))
             {
-                items.Add((new NodeReference(node), ToDataValue(v, frame.SourceTime)));
+                items.Add((new NodeReference(node), ToDataValue(v, frame.Time)));
                 names.Add(v.Name);
             }
         }

@@ -63,11 +63,11 @@ internal sealed class EstimatorCycle : IReactorCycle, Samples.IOfflineInputTarge
     public OfflineCorrection ApplyRemoval(DateTimeOffset at, double volumeL) =>
         OfflineCorrections.ApplyRemoval(_state, at, volumeL, _outputs.VolumeSource == VolumeSource.Integrated, _cycle.Settings.Estimator);
 
-    public string? SaveState() => Convert.ToBase64String(EstimatorStateCodec.Encode(_state));
+    public string? SaveState() => CheckpointCompression.Pack(EstimatorStateCodec.Encode(_state));
 
     public void RestoreState(string state)
     {
-        if (!EstimatorStateCodec.TryDecode(Convert.FromBase64String(state), out var restored, out var error))
+        if (!EstimatorStateCodec.TryDecode(CheckpointCompression.Unpack(state), out var restored, out var error))
         {
             throw new FormatException($"estimator checkpoint: {error}");
         }

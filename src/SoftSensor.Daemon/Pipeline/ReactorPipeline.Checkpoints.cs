@@ -13,6 +13,12 @@ internal sealed partial class ReactorPipeline
             return;
         }
 
+        if (await store.LatestFrameTimeAsync(Reactor, cancellationToken) is { } lastFrame)
+        {
+            // Frames of this run come after the newest one a previous run stored, whatever the clock says.
+            _frameClock.Resume(lastFrame);
+        }
+
         var checkpoint = await store.LatestCheckpointAsync(Reactor, cancellationToken);
         if (checkpoint is null)
         {

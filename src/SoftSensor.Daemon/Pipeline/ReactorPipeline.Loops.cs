@@ -9,6 +9,7 @@ internal sealed partial class ReactorPipeline
 {
     private async Task CycleLoopAsync(CancellationToken cancellationToken)
     {
+        _frameClock.StartGrid(_services.Time.GetUtcNow());
         using var timer = new PeriodicTimer(_options.CyclePeriod, _services.Time);
         while (true)
         {

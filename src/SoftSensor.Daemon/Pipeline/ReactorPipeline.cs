@@ -33,6 +33,7 @@ internal sealed partial class ReactorPipeline : ISampleIntake
     private readonly Lock _gate = new();
     private readonly KeyValuePair<string, object?> _reactorTag;
     private readonly Channel<bool>? _trigger;
+    private readonly FrameClock _frameClock;
     private string _stateBatch = string.Empty;
     private long _cycles;
     private long _newestArrival;
@@ -50,6 +51,7 @@ internal sealed partial class ReactorPipeline : ISampleIntake
         _sources = sources;
         _services = services;
         _reactorTag = new("reactor", options.Id);
+        _frameClock = new FrameClock(options.CyclePeriod);
         _trigger = options.CycleTrigger.Length > 0
             ? Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite, SingleReader = true })
             : null;
@@ -125,11 +127,18 @@ internal sealed partial class ReactorPipeline : ISampleIntake
         return ok;
     }
 
-    /// <summary>Runs one cycle at the clock's current time and dispatches its frame.</summary>
+    /// <summary>The time of the newest frame this pipeline produced or resumed after (null before either).</summary>
+    internal DateTimeOffset? LastFrameTime => _frameClock.Last;
+
+    /// <summary>
+    /// Runs one cycle at the clock's current time and dispatches its frame, stamped with the cycle's
+    /// scheduled time (<see cref="FrameClock"/>): strictly after the previous frame of this reactor.
+    /// </summary>
     public async ValueTask<EstimateFrame> RunCycleAsync(CancellationToken cancellationToken)
     {
         long start = Stopwatch.GetTimestamp();
         var now = _services.Time.GetUtcNow();
+        var frameTime = _frameClock.Next(now);
         long arrival;
         lock (_gate)
         {
@@ -152,9 +161,9 @@ internal sealed partial class ReactorPipeline : ISampleIntake
                 state => state is null ? null : NewCheckpoint(state, now), _services.Logger);
         }
 
-        var frame = Compute(now, batchId) with { Phase = open?.Phase ?? string.Empty };
+        var frame = Compute(frameTime, batchId) with { Phase = open?.Phase ?? string.Empty };
         long n = Interlocked.Increment(ref _cycles);
-        _services.Board.Publish(new ReactorSnapshot(Reactor, n, now, frame, [.. _health]));
+        _services.Board.Publish(new ReactorSnapshot(Reactor, n, frameTime, frame, [.. _health]));
         await _services.Dispatcher.EnqueueAsync(frame, arrival, cancellationToken);
         _services.Metrics.Cycles.Add(1, _reactorTag);
         _services.Metrics.CycleSeconds.Record(Stopwatch.GetElapsedTime(start).TotalSeconds, _reactorTag);
@@ -185,7 +194,7 @@ internal sealed partial class ReactorPipeline : ISampleIntake
         return true;
     }
 
-    private EstimateFrame Compute(DateTimeOffset now, string batchId)
+    private EstimateFrame Compute(DateTimeOffset time, string batchId)
     {
         try
         {
@@ -196,15 +205,46 @@ internal sealed partial class ReactorPipeline : ISampleIntake
                 quality = SampleQualities.Worst(quality, v.Quality);
             }
 
-            var sourceTime = output.SourceTime == default ? now : output.SourceTime;
-            return new EstimateFrame(Reactor, batchId, sourceTime, quality, output.Values);
+            string reason = NoFreshInput(_health);
+            if (reason.Length > 0)
+            {
+                quality = SampleQuality.Bad;
+            }
+
+            return new EstimateFrame(Reactor, batchId, time, quality, output.Values)
+            {
+                InputTime = output.SourceTime == default ? null : output.SourceTime,
+                Reason = reason,
+            };
         }
         catch (Exception e) when (e is ArithmeticException or InvalidOperationException or ArgumentException)
         {
             // A cycle reports everyday failures as results; an exception here is a programming or model
             // error. Publish a Bad frame rather than stop the reactor's pipeline, and log it.
             PipelineLog.CycleFailed(_services.Logger, e, Reactor);
-            return new EstimateFrame(Reactor, batchId, now, SampleQuality.Bad, []);
+            return new EstimateFrame(Reactor, batchId, time, SampleQuality.Bad, []) { Reason = "cycle failed: " + e.Message };
         }
+    }
+
+    /// <summary>"no fresh input" with the inputs' states when none of them is fresh (all waiting or stale); empty otherwise.</summary>
+    private static string NoFreshInput(ReadOnlySpan<InputHealth> health)
+    {
+        if (health.Length == 0)
+        {
+            return string.Empty;
+        }
+
+        int waiting = 0;
+        foreach (var h in health)
+        {
+            if (h.State == InputState.Ok)
+            {
+                return string.Empty;
+            }
+
+            waiting += h.State == InputState.Waiting ? 1 : 0;
+        }
+
+        return $"no fresh input ({health.Length - waiting} stale, {waiting} waiting for a first value)";
     }
 }

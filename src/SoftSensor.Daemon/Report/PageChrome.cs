@@ -74,7 +74,7 @@ internal static class PageChrome
     public static string Nav(string active) =>
         "<header class=\"top\"><h1>SoftSensor</h1><nav id=\"nav\">"
         + string.Concat(Pages.Select(p => $"<a href=\"{p.Path}\"{(p.Id == active ? " class=\"active\"" : "")}>{p.Label}</a>"))
-        + "</nav><span class=\"meta\" id=\"broker\"></span><span class=\"meta\" id=\"updated\"></span></header>";
+        + "</nav><span class=\"meta\" id=\"broker\"></span><span class=\"meta\" id=\"updated\"></span><span class=\"meta\" id=\"store\"></span></header>";
 
     /// <summary>The advisory caution every page ends with.</summary>
     public const string Caution = "<p class=\"caution\">Advisory only: not a safety instrumented system. Estimates are only as good as their inputs; treat an uncertain or bad value as a prompt to look at the plant. Local codes and licensed practice take precedence.</p>";

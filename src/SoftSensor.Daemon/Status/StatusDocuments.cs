@@ -8,10 +8,24 @@ namespace SoftSensor.Daemon.Status;
 /// <summary>The JSON documents of the status API (camelCase; a value that could not be computed is null).</summary>
 internal static class StatusDocuments
 {
-    public sealed record DaemonDoc(string Broker, bool MqttOnline, int MqttConnections, DateTimeOffset Now, IReadOnlyList<ReactorDoc> Reactors);
+    public sealed record DaemonDoc(string Broker, bool MqttOnline, int MqttConnections, DateTimeOffset Now, IReadOnlyList<ReactorDoc> Reactors)
+    {
+        /// <summary>The store's size and its disk's free space (null before the first maintenance pass).</summary>
+        public StoreDoc? Store { get; init; }
+    }
+
+    /// <summary>The embedded store on disk: its size, the free space of its file system, the configured threshold, and whether the disk is low (alarm <c>disk_low</c>).</summary>
+    public sealed record StoreDoc(long SizeBytes, long? FreeDiskBytes, long ThresholdBytes, bool DiskLow, long PrunedFrames, DateTimeOffset MeasuredAt);
+
+    public static StoreDoc? Store(Store.StoreHealth health) => health.Current is { MeasuredAt: { } at } r
+        ? new StoreDoc(r.StoreBytes, r.FreeBytes == long.MaxValue ? null : r.FreeBytes, r.ThresholdBytes, r.DiskLow, r.PrunedFrames, at)
+        : null;
 
     public sealed record ReactorDoc(string Id, long Cycle, DateTimeOffset CycleTime, string Quality, DateTimeOffset? SourceTime, IReadOnlyList<EstimateDoc> Estimates, IReadOnlyList<InputDoc> Inputs)
     {
+        /// <summary>Why the newest frame is Bad when no input was fresh (empty otherwise).</summary>
+        public string Reason { get; init; } = "";
+
         /// <summary>The batch id of the newest frame.</summary>
         public string Batch { get; init; } = "";
 
@@ -54,10 +68,11 @@ internal static class StatusDocuments
         s.Cycle,
         s.CycleTime,
         EstimatePayload.Name(s.Frame?.Quality ?? SampleQuality.Bad),
-        s.Frame?.SourceTime,
+        s.Frame?.InputTime,
         s.Frame?.Values.Select(v => new EstimateDoc(v.Name, Finite(v.Value), v.Unit, Finite(v.Sigma), EstimatePayload.Name(v.Quality), v.StatusCode)).ToList() ?? [],
         s.Inputs.Select(i => Input(i, tags is not null && tags.TryGetValue(i.Tag, out var tag) ? tag : null)).ToList())
     {
+        Reason = s.Frame?.Reason ?? "",
         Batch = s.Frame?.BatchId ?? "",
         Phase = s.Frame?.Phase ?? "",
         BatchOpen = batch is not null,

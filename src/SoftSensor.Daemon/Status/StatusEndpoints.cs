@@ -34,10 +34,10 @@ internal static class StatusEndpoints
 
     public static void MapStatusEndpoints(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/", async (StatusBoard board, MqttLink link, Batches.BatchBook book, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, TimeProvider time, CancellationToken ct) =>
+        app.MapGet("/", async (StatusBoard board, MqttLink link, Batches.BatchBook book, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, TimeProvider time, Store.StoreHealth health, CancellationToken ct) =>
         {
             // The page carries its status and trends, so the first paint already shows values and plots.
-            var status = Current(board, link, book, o.Value, time);
+            var status = Current(board, link, book, o.Value, time, health);
             var trends = new List<TrendDoc>();
             foreach (var r in status.Reactors)
             {
@@ -46,8 +46,8 @@ internal static class StatusEndpoints
 
             return Results.Content(StatusPage.With(JsonSerializer.Serialize(status, Json), JsonSerializer.Serialize(trends, Json)), "text/html; charset=utf-8");
         });
-        app.MapGet("/api/status", (StatusBoard board, MqttLink link, Batches.BatchBook book, IOptions<SoftSensorOptions> o, TimeProvider time) =>
-            Results.Json(Current(board, link, book, o.Value, time), Json));
+        app.MapGet("/api/status", (StatusBoard board, MqttLink link, Batches.BatchBook book, IOptions<SoftSensorOptions> o, TimeProvider time, Store.StoreHealth health) =>
+            Results.Json(Current(board, link, book, o.Value, time, health), Json));
         app.MapGet("/api/trends", TrendsAsync);
         app.MapGet("/api/estimates", EstimatesAsync);
         app.MapGet("/api/alarms", async (SqliteStore store, CancellationToken ct) =>
@@ -55,9 +55,10 @@ internal static class StatusEndpoints
         app.MapGet("/metrics", (PrometheusExporter exporter) => Results.Text(exporter.Render(), PrometheusExporter.ContentType));
     }
 
-    private static DaemonDoc Current(StatusBoard board, MqttLink link, Batches.BatchBook book, SoftSensorOptions o, TimeProvider time) =>
+    private static DaemonDoc Current(StatusBoard board, MqttLink link, Batches.BatchBook book, SoftSensorOptions o, TimeProvider time, Store.StoreHealth health) =>
         new($"mqtt://{o.Mqtt.Host}:{o.Mqtt.Port}", link.IsOnline, link.Connections, time.GetUtcNow(),
-            board.All.Select(s => Reactor(s, o.Reactors.FirstOrDefault(r => r.Id == s.Reactor)?.Tags, book.Current(s.Reactor))).ToList());
+            board.All.Select(s => Reactor(s, o.Reactors.FirstOrDefault(r => r.Id == s.Reactor)?.Tags, book.Current(s.Reactor))).ToList())
+        { Store = StatusDocuments.Store(health) };
 
     private static async Task<IResult> TrendsAsync(string? reactor, double? hours, SqliteStore store, Samples.SampleBook samples, IOptions<SoftSensorOptions> o, CancellationToken ct)
     {

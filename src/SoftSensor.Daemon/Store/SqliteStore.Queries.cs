@@ -37,7 +37,7 @@ internal sealed partial class SqliteStore
         return ValueTask.FromResult<IReadOnlyList<StoredEstimate>>(list);
     }
 
-    /// <summary>Source time of the newest frame of a reactor, or null.</summary>
+    /// <inheritdoc/>
     public ValueTask<DateTimeOffset?> LatestFrameTimeAsync(string reactor, CancellationToken cancellationToken)
     {
         cancellationToken.ThrowIfCancellationRequested();

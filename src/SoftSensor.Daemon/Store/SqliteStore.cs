@@ -22,15 +22,21 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
     private readonly string _connectionString;
     private readonly TimeProvider _time;
     private readonly ITimer _checkpointer;
+    private readonly int _checkpointsKept;
     private IFrameCompanion[] _companions = [];
 
     public SqliteStore(IOptions<SoftSensorOptions> options, TimeProvider time)
-        : this(options.Value.Store.Path, time)
+        : this(options.Value.Store.Path, time, options.Value.Store.CheckpointsKept)
     {
     }
 
-    public SqliteStore(string path, TimeProvider time)
+    /// <param name="path">The database file.</param>
+    /// <param name="time">The process clock (outbox cursor times).</param>
+    /// <param name="checkpointsKept">Checkpoints kept per reactor; older ones are deleted as a new one is written.</param>
+    public SqliteStore(string path, TimeProvider time, int checkpointsKept = 3)
     {
+        ArgumentOutOfRangeException.ThrowIfLessThan(checkpointsKept, 1);
+        _checkpointsKept = checkpointsKept;
         _time = time;
         string full = System.IO.Path.GetFullPath(path);
         Directory.CreateDirectory(System.IO.Path.GetDirectoryName(full)!);
@@ -38,6 +44,7 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
         _connectionString = new SqliteConnectionStringBuilder { DataSource = full, Pooling = true }.ToString();
         _writer = new SqliteConnection(_connectionString);
         _writer.Open();
+        EnsureIncrementalVacuum(_writer);
         Execute(_writer, "PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA foreign_keys=ON; PRAGMA busy_timeout=5000;");
         Execute(_writer, StoreSchema.Create);
         foreach (var (table, column, sql) in StoreSchema.AddedColumns)
@@ -106,12 +113,14 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             using var tx = _writer.BeginTransaction();
             using var f = _writer.CreateCommand();
             f.Transaction = tx;
-            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase) VALUES ($r, $b, $t, $q, $p) RETURNING id";
+            f.CommandText = "INSERT INTO frames (reactor, batch, time_ms, quality, phase, input_ms, reason) VALUES ($r, $b, $t, $q, $p, $i, $w) RETURNING id";
             var fr = f.Parameters.Add("$r", SqliteType.Text);
             var fb = f.Parameters.Add("$b", SqliteType.Text);
             var ft = f.Parameters.Add("$t", SqliteType.Integer);
             var fq = f.Parameters.Add("$q", SqliteType.Integer);
             var fp = f.Parameters.Add("$p", SqliteType.Text);
+            var fi = f.Parameters.Add("$i", SqliteType.Integer);
+            var fw = f.Parameters.Add("$w", SqliteType.Text);
             f.Prepare();
             using var e = _writer.CreateCommand();
             e.Transaction = tx;
@@ -129,12 +138,14 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             for (int k = 0; k < frames.Count; k++)
             {
                 var frame = frames[k];
-                long ms = frame.SourceTime.ToUnixTimeMilliseconds();
+                long ms = frame.Time.ToUnixTimeMilliseconds();
                 fr.Value = frame.Reactor;
                 fb.Value = frame.BatchId;
                 ft.Value = ms;
                 fq.Value = (int)frame.Quality;
                 fp.Value = frame.Phase;
+                fi.Value = frame.InputTime is { } input ? input.ToUnixTimeMilliseconds() : DBNull.Value;
+                fw.Value = frame.Reason;
                 long id = (long)f.ExecuteScalar()!;
                 ids[k] = id;
                 pf.Value = id;
@@ -212,7 +223,17 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);
             c.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
             c.Parameters.AddWithValue("$s", checkpoint.State);
+            using var tx = _writer.BeginTransaction();
+            c.Transaction = tx;
             c.ExecuteNonQuery();
+            // Only the newest few are kept (store:checkpointsKept): a resume reads the newest.
+            using var prune = _writer.CreateCommand();
+            prune.Transaction = tx;
+            prune.CommandText = "DELETE FROM checkpoints WHERE reactor = $r AND id <= (SELECT id FROM checkpoints WHERE reactor = $r ORDER BY id DESC LIMIT 1 OFFSET $k)";
+            prune.Parameters.AddWithValue("$r", checkpoint.Reactor);
+            prune.Parameters.AddWithValue("$k", _checkpointsKept);
+            prune.ExecuteNonQuery();
+            tx.Commit();
         }
         finally
         {

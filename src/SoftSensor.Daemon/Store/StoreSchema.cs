@@ -4,7 +4,7 @@ namespace SoftSensor.Daemon.Store;
 /// The embedded store's tables (SQLite, WAL). Times are Unix milliseconds UTC; a value that could not
 /// be computed is NULL; quality is 0 good, 1 uncertain, 2 bad (<see cref="Core.Signals.SampleQuality"/>).
 /// <list type="bullet">
-/// <item><c>frames</c>: one row per cycle and reactor (its id orders the outbox), with its batch and the batch's phase (version 2).</item>
+/// <item><c>frames</c>: one row per cycle and reactor (its id orders the outbox), with its batch and the batch's phase (version 2); <c>time_ms</c> is the cycle's scheduled time (strictly increasing per reactor), <c>input_ms</c> the newest input time the cycle used (NULL when none) and <c>reason</c> why a frame is Bad when no input was fresh (version 3).</item>
 /// <item><c>estimates</c>: one row per value of a frame, indexed by frame only (a query by reactor and time goes through <c>frames</c>: one index entry per value that lands at the end of its index, not thirteen spread over a reactor-and-name index, which at a thousand reactors was two thirds of the store's write time, StoreWriteBenchmarks).</item>
 /// <item><c>alarms</c>: every alarm state change (the active ones are the newest row per alarm with active = 1).</item>
 /// <item><c>checkpoints</c>: estimator state per reactor, newest last, with the batch it belongs to (version 2).</item>
@@ -13,7 +13,7 @@ namespace SoftSensor.Daemon.Store;
 internal static class StoreSchema
 {
     /// <summary>Schema version in <c>PRAGMA user_version</c>.</summary>
-    public const int Version = 2;
+    public const int Version = 3;
 
     public const string Create = """
         CREATE TABLE IF NOT EXISTS frames (
@@ -22,7 +22,9 @@ internal static class StoreSchema
             batch     TEXT    NOT NULL,
             time_ms   INTEGER NOT NULL,
             quality   INTEGER NOT NULL,
-            phase     TEXT    NOT NULL DEFAULT ''
+            phase     TEXT    NOT NULL DEFAULT '',
+            input_ms  INTEGER,
+            reason    TEXT    NOT NULL DEFAULT ''
         );
         CREATE INDEX IF NOT EXISTS frames_by_reactor_time ON frames (reactor, time_ms);
         CREATE TABLE IF NOT EXISTS estimates (
@@ -69,5 +71,7 @@ internal static class StoreSchema
         ("checkpoints", "batch", "ALTER TABLE checkpoints ADD COLUMN batch TEXT"),
         ("frames", "phase", "ALTER TABLE frames ADD COLUMN phase TEXT NOT NULL DEFAULT ''"),
         ("checkpoints", "inputs", "ALTER TABLE checkpoints ADD COLUMN inputs TEXT"),
+        ("frames", "input_ms", "ALTER TABLE frames ADD COLUMN input_ms INTEGER"),
+        ("frames", "reason", "ALTER TABLE frames ADD COLUMN reason TEXT NOT NULL DEFAULT ''"),
     ];
 }

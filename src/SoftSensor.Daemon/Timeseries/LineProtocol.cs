@@ -10,15 +10,18 @@ namespace SoftSensor.Daemon.Timeseries;
 /// (<see cref="EstimateKinds"/>), tags <c>site</c>, <c>unit</c> (the reactor) and <c>batch</c>;
 /// per estimate a float field with its value (left out when not finite: line protocol has no
 /// NaN), an integer field <c>&lt;name&gt;_quality</c> (0 good, 1 uncertain, 2 bad) and, when
-/// known, a float field <c>&lt;name&gt;_sigma</c>. Timestamps in milliseconds: the same frame
-/// always maps to the same points, so a resend overwrites instead of duplicating.
+/// known, a float field <c>&lt;name&gt;_sigma</c>. A frame that knows its inputs' time (or why it
+/// has none) adds a measurement <c>frame</c> with the frame's quality and <c>input_age_s</c>, the
+/// age of the newest input the cycle used. The timestamp is the frame's (its cycle's scheduled
+/// time, one per cycle and reactor), in milliseconds: the same frame always maps to the same
+/// points, so a resend overwrites instead of duplicating.
 /// </summary>
 internal static class LineProtocol
 {
     /// <summary>The lines of one frame, in a stable order (kinds, then estimates, by name).</summary>
     public static IReadOnlyList<string> Lines(EstimateFrame frame, string site, string measurementPrefix)
     {
-        long ms = frame.SourceTime.ToUnixTimeMilliseconds();
+        long ms = frame.Time.ToUnixTimeMilliseconds();
         var lines = new List<string>(4);
         foreach (var group in frame.Values.GroupBy(v => EstimateKinds.Of(v.Name)).OrderBy(g => g.Key, StringComparer.Ordinal))
         {
@@ -47,7 +50,31 @@ internal static class LineProtocol
             lines.Add(sb.ToString());
         }
 
+        if (frame.InputTime is not null || frame.Reason.Length > 0)
+        {
+            lines.Add(FrameLine(frame, site, measurementPrefix, ms));
+        }
+
         return lines;
+    }
+
+    private static string FrameLine(EstimateFrame frame, string site, string measurementPrefix, long ms)
+    {
+        var sb = new StringBuilder(128);
+        AppendName(sb, measurementPrefix + "frame", measurement: true);
+        AppendTag(sb, "site", site);
+        AppendTag(sb, "unit", frame.Reactor);
+        AppendTag(sb, "batch", frame.BatchId);
+        sb.Append(' ');
+        bool first = true;
+        AppendField(sb, ref first, "quality", ((int)frame.Quality).ToString(CultureInfo.InvariantCulture) + "i");
+        if (frame.InputAge is { } age)
+        {
+            AppendField(sb, ref first, "input_age_s", Float(age.TotalSeconds));
+        }
+
+        sb.Append(' ').Append(ms.ToString(CultureInfo.InvariantCulture));
+        return sb.ToString();
     }
 
     /// <summary>Escapes a measurement (commas, spaces) or a tag/field key or tag value (commas, equals signs, spaces), and backslashes.</summary>

@@ -18,7 +18,7 @@ internal readonly record struct OutboxStats(long Depth, long Bytes, DateTimeOffs
 /// acknowledged them. The unsent payload is bounded; a frame beyond the bound is refused.
 /// Threading: every method may be called from any thread (one connection behind a lock).
 /// </summary>
-internal sealed class OutboxStore : IDisposable
+internal sealed class OutboxStore : Store.IRetainedRows, IDisposable
 {
     private readonly Lock _gate = new();
     private readonly SqliteConnection _db;
@@ -175,6 +175,44 @@ internal sealed class OutboxStore : IDisposable
             _depth -= removed;
             _bytes -= batch.Sum(e => (long)e.Bytes);
             RefreshOldest();
+        }
+    }
+
+    /// <summary>
+    /// Retention (<c>store:retention</c>): removes at most <paramref name="limit"/> of the oldest unsent
+    /// rows committed before <paramref name="cutoff"/>, in one short transaction; returns how many.
+    /// </summary>
+    public int DropOlderThan(DateTimeOffset cutoff, int limit)
+    {
+        lock (_gate)
+        {
+            if (_oldestMs is not { } oldest || oldest >= cutoff.ToUnixTimeMilliseconds())
+            {
+                return 0;
+            }
+
+            using var tx = _db.BeginTransaction();
+            using var cmd = _db.CreateCommand();
+            cmd.Transaction = tx;
+            cmd.CommandText = "DELETE FROM ts_outbox WHERE id IN (SELECT id FROM ts_outbox WHERE enqueued_ms < $c ORDER BY id LIMIT $n) RETURNING bytes;";
+            cmd.Parameters.AddWithValue("$c", cutoff.ToUnixTimeMilliseconds());
+            cmd.Parameters.AddWithValue("$n", limit);
+            int removed = 0;
+            long bytes = 0;
+            using (var r = cmd.ExecuteReader())
+            {
+                while (r.Read())
+                {
+                    removed++;
+                    bytes += r.GetInt64(0);
+                }
+            }
+
+            tx.Commit();
+            _depth -= removed;
+            _bytes -= bytes;
+            RefreshOldest();
+            return removed;
         }
     }
 

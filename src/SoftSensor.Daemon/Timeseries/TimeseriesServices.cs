@@ -38,6 +38,8 @@ internal static class TimeseriesServices
             var o = sp.GetRequiredService<TimeseriesOptions>();
             return new OutboxStore(o.OutboxPath, o.MaxOutboxBytes);
         });
+        // store:retention bounds the unsent rows too (the outbox is itself bounded by maxOutboxMegabytes).
+        services.AddSingleton<Store.IRetainedRows>(sp => sp.GetRequiredService<OutboxStore>());
         services.AddSingleton<ITimeseriesWriter>(sp =>
         {
             var o = sp.GetRequiredService<TimeseriesOptions>();

@@ -99,6 +99,6 @@ internal sealed class TimeseriesSink(
     {
         var s = store.Stats;
         metrics.Refused();
-        TimeseriesLog.Refused(log, s.Bytes, s.LimitBytes, frame.Reactor, frame.SourceTime);
+        TimeseriesLog.Refused(log, s.Bytes, s.LimitBytes, frame.Reactor, frame.Time);
     }
 }

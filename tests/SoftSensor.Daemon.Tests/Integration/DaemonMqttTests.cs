@@ -82,10 +82,25 @@ public sealed class DaemonMqttTests(MosquittoFixture broker) : IClassFixture<Mos
         using var doc = JsonDocument.Parse(our);
         Assert.Equal(38.629, doc.RootElement.GetProperty("value").GetDouble(), 0.0005);
 
+        // The counters are read as the exporter collects them: wait for the expected lines (generous timeout), do not sleep.
         using var http = new HttpClient();
-        string metrics = await http.GetStringAsync(daemon.StatusAddress + "/metrics");
-        Assert.Contains($"softsensor_samples_rejected_total{{reactor=\"r1\"}} {garbage.Length}", metrics, StringComparison.Ordinal);
-        Assert.Contains("softsensor_samples_in_total{reactor=\"r1\"} 4", metrics, StringComparison.Ordinal);
+        string rejected = $"softsensor_samples_rejected_total{{reactor=\"r1\"}} {garbage.Length}";
+        string accepted = "softsensor_samples_in_total{reactor=\"r1\"} 4";
+        string metrics = "";
+        var deadline = DateTime.UtcNow + Wait;
+        while (DateTime.UtcNow < deadline)
+        {
+            metrics = await http.GetStringAsync(daemon.StatusAddress + "/metrics");
+            if (metrics.Contains(rejected, StringComparison.Ordinal) && metrics.Contains(accepted, StringComparison.Ordinal))
+            {
+                break;
+            }
+
+            await Task.Delay(50);
+        }
+
+        Assert.Contains(rejected, metrics, StringComparison.Ordinal);
+        Assert.Contains(accepted, metrics, StringComparison.Ordinal);
         Assert.Contains("# TYPE softsensor_cycle_seconds histogram", metrics, StringComparison.Ordinal);
     }
 

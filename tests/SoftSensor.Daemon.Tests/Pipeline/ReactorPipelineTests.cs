@@ -63,7 +63,7 @@ public sealed class ReactorPipelineTests : IDisposable
         Assert.Equal(39.035, Value(frame, EstimateNames.Cer).Value, 0.0005);
         Assert.Equal(1.0105, Value(frame, EstimateNames.Rq).Value, 0.00005);
         Assert.Equal(SampleQuality.Good, frame.Quality);
-        Assert.Equal(T0, frame.SourceTime);
+        Assert.Equal(T0, frame.Time);
         Assert.Equal("r1", frame.Reactor);
     }
 

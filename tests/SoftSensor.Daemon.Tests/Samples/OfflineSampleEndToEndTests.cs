@@ -113,7 +113,7 @@ public sealed class OfflineSampleEndToEndTests(MosquittoFixture broker, Xunit.Ab
 
         // The checkpoint written with the update holds the corrected state.
         var checkpoint = (await store.LatestCheckpointAsync("r1", default))!;
-        Assert.True(EstimatorStateCodec.TryDecode(Convert.FromBase64String(checkpoint.State), out var state, out var error), error);
+        Assert.True(EstimatorStateCodec.TryDecode(SoftSensor.Daemon.Pipeline.CheckpointCompression.Unpack(checkpoint.State), out var state, out var error), error);
         int at = state!.History.IndexAtOrBefore(t0.AddSeconds(600).UtcTicks);
         Assert.Equal(xPosterior, state.History[at].States.BiomassG / state.History[at].Inputs.VolumeL, 1e-9);
 

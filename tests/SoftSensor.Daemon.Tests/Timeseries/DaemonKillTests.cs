@@ -56,7 +56,9 @@ public sealed class DaemonKillTests(MosquittoFixture broker) : IClassFixture<Mos
         return path;
     }
 
-    private static Process Start(string config)
+    private readonly System.Collections.Concurrent.ConcurrentQueue<string> _stderr = new();
+
+    private Process Start(string config)
     {
         var info = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         info.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, "softsensor.dll"));
@@ -65,11 +67,13 @@ public sealed class DaemonKillTests(MosquittoFixture broker) : IClassFixture<Mos
         info.ArgumentList.Add(config);
         var p = Process.Start(info)!;
         p.OutputDataReceived += (_, _) => { };
-        p.ErrorDataReceived += (_, _) => { };
+        p.ErrorDataReceived += (_, e) => { if (e.Data is { } line) { _stderr.Enqueue(line); } };
         p.BeginOutputReadLine();
         p.BeginErrorReadLine();
         return p;
     }
+
+    private string Stderr => string.Join(Environment.NewLine, _stderr.TakeLast(20));
 
     private static async Task SignalAsync(Process p, string signal)
     {
@@ -79,44 +83,94 @@ public sealed class DaemonKillTests(MosquittoFixture broker) : IClassFixture<Mos
         await p.WaitForExitAsync(wait.Token);
     }
 
+    private string StorePath => Path.Combine(_dir, "store.db");
+
+    private int StoredFrames()
+    {
+        try
+        {
+            return File.Exists(StorePath) ? FrameTimeChecks.StoredFrameTimes(StorePath).Count : 0;
+        }
+        catch (Microsoft.Data.Sqlite.SqliteException)
+        {
+            return 0; // the daemon is still creating its tables
+        }
+    }
+
+    /// <summary>Waits until the store holds <paramref name="more"/> frames more than now (the daemon is cycling), generous timeout.</summary>
+    private async Task WaitForFramesAsync(int more, string what)
+    {
+        int target = StoredFrames() + more;
+        await FrameTimeChecks.WaitUntilAsync(() => StoredFrames() >= target, TimeSpan.FromSeconds(60), what);
+    }
+
+    private Task FeedAsync(TestMqttClient plant, CancellationToken stop) => Task.Run(async () =>
+    {
+        while (!stop.IsCancellationRequested)
+        {
+            await DaemonMqttTests.PublishHandCaseAsync(plant, "it-kill");
+            await Task.Delay(100, CancellationToken.None);
+        }
+    });
+
     [Fact]
     public async Task Run_KilledDuringDatabaseOutageAndRestarted_EveryStoredCycleInTheDatabaseOnce()
     {
         string config = WriteConfig();
         await using var plant = await TestMqttClient.ConnectAsync(broker.Port, "it-kill-plant");
         using var stopFeeding = new CancellationTokenSource();
-        var feeding = Task.Run(async () =>
-        {
-            while (!stopFeeding.IsCancellationRequested)
-            {
-                await DaemonMqttTests.PublishHandCaseAsync(plant, "it-kill");
-                await Task.Delay(100);
-            }
-        });
+        var feeding = FeedAsync(plant, stopFeeding.Token);
 
         using var first = Start(config);
-        await Task.Delay(4000);
+        await WaitForFramesAsync(10, "10 frames of the first run");
         await _vm.StopGracefullyAsync();
-        await Task.Delay(2000);
+        await WaitForFramesAsync(8, "8 frames during the database outage");
         await SignalAsync(first, "-KILL");
 
         await _vm.StartAsync();
         using var second = Start(config);
-        await Task.Delay(4000);
+        await WaitForFramesAsync(10, "10 frames of the second run");
         await stopFeeding.CancelAsync();
         await feeding;
-        await Task.Delay(500);
         await SignalAsync(second, "-TERM");
-        Assert.Equal(0, second.ExitCode);
+        Assert.True(second.ExitCode == 0, $"exit code {second.ExitCode}; stderr:{Environment.NewLine}{Stderr}");
 
-        using var store = new SqliteStore(Path.Combine(_dir, "store.db"), TimeProvider.System);
-        var cycles = (await store.QueryEstimatesAsync("r1", EstimateNames.Our, DateTimeOffset.UnixEpoch, DateTimeOffset.UtcNow.AddDays(1), 1_000_000, default))
-            .Select(r => r.Time.ToUnixTimeMilliseconds()).ToHashSet();
-        Assert.True(cycles.Count > 20, $"only {cycles.Count} cycles stored");
-        var stored = await _vm.ExportWhenCompleteAsync("softsensor_gas_our_quality", 1, cycles.Count);
-        var series = Assert.Single(stored, kv => kv.Key.Contains("area", StringComparison.Ordinal) || kv.Key.Contains("unit=r1", StringComparison.Ordinal));
-        var missing = cycles.Except(series.Value).Count();
-        Assert.True(missing == 0 && series.Value.Count == cycles.Count && series.Value.Distinct().Count() == cycles.Count,
-            $"store has {cycles.Count} cycles; database has {series.Value.Count} samples ({series.Value.Distinct().Count()} distinct), {missing} cycles missing");
+        var stored = FrameTimeChecks.StoredFrameTimes(StorePath);
+        FrameTimeChecks.AssertStrictlyIncreasing(stored, "store across a kill -9 during a database outage");
+        await FrameTimeChecks.AssertEachFrameOnceInDatabaseAsync(_vm, stored);
+    }
+
+    [Fact]
+    public async Task Run_KilledWithInputsAbsentAndRestartedWithout_FramesStayUniqueAndIncreasingInStoreAndDatabase()
+    {
+        string config = WriteConfig();
+        await using var plant = await TestMqttClient.ConnectAsync(broker.Port, "it-kill-absent-plant");
+        using var first = Start(config);
+        using (var feeding = new CancellationTokenSource())
+        {
+            var feed = FeedAsync(plant, feeding.Token);
+            await WaitForFramesAsync(10, "10 frames with inputs");
+            await feeding.CancelAsync();
+            await feed;
+        }
+
+        // Inputs absent: the newest input time stands still while frames go on (the case that sent 14 frames 2 s back).
+        await WaitForFramesAsync(8, "8 frames with the inputs absent");
+        await SignalAsync(first, "-KILL");
+        using var second = Start(config);
+        await WaitForFramesAsync(8, "8 frames after the restart, inputs still absent");
+        using (var feeding = new CancellationTokenSource())
+        {
+            var feed = FeedAsync(plant, feeding.Token);
+            await WaitForFramesAsync(8, "8 frames with the inputs back");
+            await feeding.CancelAsync();
+            await feed;
+        }
+
+        await SignalAsync(second, "-TERM");
+        Assert.True(second.ExitCode == 0, $"exit code {second.ExitCode}; stderr:{Environment.NewLine}{Stderr}");
+        var stored = FrameTimeChecks.StoredFrameTimes(StorePath);
+        FrameTimeChecks.AssertStrictlyIncreasing(stored, "store across a kill -9 with the inputs absent");
+        await FrameTimeChecks.AssertEachFrameOnceInDatabaseAsync(_vm, stored);
     }
 }
