@@ -29,7 +29,7 @@ internal sealed class EstimateFramesCsv(TextWriter writer) : IEstimateSink
             writer.WriteLine("time,quality," + string.Join(',', _names.Select(n => $"{n},{n}_sigma,{n}_quality")));
         }
 
-        _line.Clear().Append(frame.SourceTime.UtcDateTime.ToString("yyyy-MM-ddTHH:mm:ss.fffZ", CultureInfo.InvariantCulture)).Append(',').Append(Q(frame.Quality));
+        _line.Clear().Append(frame.Time.UtcDateTime.ToString("yyyy-MM-ddTHH:mm:ss.fffZ", CultureInfo.InvariantCulture)).Append(',').Append(Q(frame.Quality));
         foreach (var name in _names)
         {
             var v = frame.Values.FirstOrDefault(x => x.Name == name);
