@@ -112,7 +112,7 @@ public sealed class ReplayRunParityTests(MosquittoFixture broker) : IClassFixtur
 
     private static void AssertSameFrame(EstimateFrame x, EstimateFrame y, int cycle)
     {
-        Assert.Equal(x.SourceTime, y.SourceTime);
+        Assert.Equal(x.Time, y.Time);
         Assert.Equal(x.Quality, y.Quality);
         Assert.Equal(x.Values.Select(v => v.Name), y.Values.Select(v => v.Name));
         for (int i = 0; i < x.Values.Count; i++)
