@@ -36,7 +36,7 @@ internal static class AlarmEndpoints
                 return Results.Json(new AlarmCommandReply(false, "alarm command: body above 4096 bytes", []), AlarmPayloads.Json, statusCode: 400);
             }
 
-            var result = await alarms.CommandAsync(body.ToArray(), null, ct);
+            var result = await alarms.CommandAsync(body.ToArray(), null, ct, Access.AccessMiddleware.UserName(request.HttpContext));
             var reply = new AlarmCommandReply(result.Applied, result.Message,
                 [.. result.Transitions.Select(t => new AlarmCommandReplyItem(t.RuleId, AlarmStates.Id(t.From), AlarmStates.Id(t.To)))]);
             int status = result.Applied ? 200 : result.Message.StartsWith("alarm command:", StringComparison.Ordinal) ? 400 : 409;

@@ -35,15 +35,23 @@ internal sealed class BatchVerb : IVerb
         return new Command("batch", "Batch commands to a running daemon: start, phase, end, status") { start, phase, end, status };
     }
 
-    /// <summary>POSTs <paramref name="body"/> (GET when null) and prints the answer; the exit code.</summary>
-    public static async Task<int> SendAsync(string baseUrl, string path, object? body, TextWriter output, TextWriter error, CancellationToken ct)
+    /// <summary>
+    /// POSTs <paramref name="body"/> (GET when null) and prints the answer; the exit code. The bearer token is
+    /// <paramref name="token"/>, else the environment's <c>SOFTSENSOR_TOKEN</c>, else the file named by <c>SOFTSENSOR_TOKEN_FILE</c>.
+    /// </summary>
+    public static async Task<int> SendAsync(string baseUrl, string path, object? body, TextWriter output, TextWriter error, CancellationToken ct, string? token = null)
     {
-        if (!Uri.TryCreate(baseUrl, UriKind.Absolute, out var root) || root.Scheme != Uri.UriSchemeHttp)
+        if (!Uri.TryCreate(baseUrl, UriKind.Absolute, out var root) || (root.Scheme != Uri.UriSchemeHttp && root.Scheme != Uri.UriSchemeHttps))
         {
-            return CliOutput.BadInput(error, $"--url is '{baseUrl}' (expected an http:// URL such as http://127.0.0.1:8470)");
+            return CliOutput.BadInput(error, $"--url is '{baseUrl}' (expected an http:// or https:// URL such as http://127.0.0.1:8470)");
         }
 
         using var http = new HttpClient { BaseAddress = root, Timeout = TimeSpan.FromSeconds(10) };
+        if ((token ?? Access.ClientToken.FromEnvironment()) is { Length: > 0 } bearer)
+        {
+            http.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", bearer);
+        }
+
         HttpResponseMessage response;
         try
         {

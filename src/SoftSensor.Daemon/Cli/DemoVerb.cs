@@ -83,6 +83,7 @@ internal sealed class DemoVerb : IVerb
                 ["mqtt:host"] = broker.Host,
                 ["mqtt:port"] = broker.Port.ToString(CultureInfo.InvariantCulture),
                 ["store:path"] = store,
+                ["access:credentialsFile"] = Path.Combine(Path.GetDirectoryName(store)!, "credentials"),
             },
             ConfigureServices = s => s.AddSingleton<TimeProvider>(clock),
             ConsoleLevel = Microsoft.Extensions.Logging.LogLevel.Warning,
@@ -92,7 +93,9 @@ internal sealed class DemoVerb : IVerb
         return await DaemonRunner.RunAsync(settings, Console.Error, async (app, ct) =>
         {
             Console.WriteLine($"SoftSensor demo: scenario {scenario.Name} ({Path.GetFileName(scenarioPath)}, invented data), {speed.ToString(CultureInfo.InvariantCulture)}x, {runFor} of simulated time");
-            Console.WriteLine($"status page: {DaemonHost.StatusAddress(app)}");
+            // One command stays enough: a one-time operator login link (the token opens one session, then is void).
+            string login = app.Services.GetRequiredService<Access.CredentialStore>().AddOneTimeToken(Access.Role.Operator);
+            Console.WriteLine($"status page: {DaemonHost.StatusAddress(app)}/login?token={login} (one-time operator login; reading needs none)");
             Console.WriteLine($"broker: {broker.Address}");
             Console.WriteLine($"store: {store}");
             Console.WriteLine("Advisory only: not a safety instrumented system. Ctrl+C stops.");

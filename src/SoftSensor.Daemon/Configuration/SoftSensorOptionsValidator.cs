@@ -78,9 +78,9 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"store:checkpointEveryCycles is {options.Store.CheckpointEveryCycles} (expected 1 or more)");
         }
 
-        if (!Uri.TryCreate(options.Status.Url, UriKind.Absolute, out var url) || url.Scheme != Uri.UriSchemeHttp)
+        if (!Uri.TryCreate(options.Status.Url, UriKind.Absolute, out var url) || (url.Scheme != Uri.UriSchemeHttp && url.Scheme != Uri.UriSchemeHttps))
         {
-            errors.Add($"status:url is '{options.Status.Url}' (expected an http:// URL such as http://127.0.0.1:8470)");
+            errors.Add($"status:url is '{options.Status.Url}' (expected an http:// or https:// URL such as http://127.0.0.1:8470)");
         }
 
         return errors.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(errors);

@@ -6,6 +6,7 @@ using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Access;
 using SoftSensor.Daemon.Alarming;
 using SoftSensor.Daemon.Status;
 
@@ -42,8 +43,11 @@ internal static class DaemonHost
         builder.Services.AddSoftSensorDaemon(builder.Configuration);
         builder.Services.AddSingleton(new Pipeline.ConfigLocation(settings.ConfigFile is { } config ? Path.GetDirectoryName(Path.GetFullPath(config))! : Directory.GetCurrentDirectory()));
         settings.ConfigureServices?.Invoke(builder.Services);
+        builder.Services.AddAccessControl(builder.Configuration);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
+        builder.WebHost.ConfigureServerLimits(builder.Configuration);
         var app = builder.Build();
+        app.UseAccessControl();
         // The exporter listens from the start, so /metrics counts what happened before its first request.
         app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();

@@ -201,7 +201,7 @@ internal sealed partial class MqttLink
             .WithWillQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce);
         if (_options.Username.Length > 0)
         {
-            b.WithCredentials(_options.Username, _options.Password);
+            b.WithCredentials(_options.Username, Access.MqttSecrets.Password(_options));
         }
 
         if (_options.Tls)
@@ -218,6 +218,16 @@ internal sealed partial class MqttLink
                 if (untrusted)
                 {
                     t.WithCertificateValidationHandler(_ => true);
+                }
+                else if (_options.TlsCaFile.Length > 0)
+                {
+                    var ca = Access.MqttSecrets.LoadCa(_options.TlsCaFile);
+                    t.WithCertificateValidationHandler(a => Access.MqttSecrets.ValidateAgainst(ca, a.Certificate, a.SslPolicyErrors));
+                }
+
+                if (_options.TlsClientCertificateFile.Length > 0)
+                {
+                    t.WithClientCertificates([Access.MqttSecrets.LoadClientCertificate(_options.TlsClientCertificateFile, _options.TlsClientKeyFile)]);
                 }
             });
         }
