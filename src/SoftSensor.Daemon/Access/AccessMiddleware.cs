@@ -45,6 +45,12 @@ internal sealed class AccessMiddleware(RequestDelegate next, AccessPolicy policy
 
         bool read = HttpMethodsEx.IsRead(request.Method);
         bool loginPath = path is "/login" or "/logout";
+        if (!read && !path.StartsWith("/api/", StringComparison.Ordinal) && !request.HasFormContentType && request.ContentLength != 0 && path != "/logout")
+        {
+            await RefuseAsync(context, StatusCodes.Status415UnsupportedMediaType, "a form post needs Content-Type application/x-www-form-urlencoded or multipart/form-data");
+            return;
+        }
+
         var (principal, session, bearer) = Identify(context);
         if (principal is not null)
         {
@@ -82,18 +88,24 @@ internal sealed class AccessMiddleware(RequestDelegate next, AccessPolicy policy
                 }
             }
 
+            if (!read && !loginPath)
+            {
+                // Journaled as the answer starts, so a client that got its answer finds the row.
+                var who = principal!;
+                context.Response.OnStarting(() =>
+                {
+                    journal.Append(who, request.Method, path, context.Response.StatusCode);
+                    AccessLog.Change(log, who.Name, Roles.Id(who.Role), who.Method, request.Method, path, context.Response.StatusCode);
+                    return Task.CompletedTask;
+                });
+            }
+
             await next(context);
         }
         catch (BadHttpRequestException e) when (!context.Response.HasStarted)
         {
             await RefuseAsync(context, e.StatusCode, e.Message);
             return;
-        }
-
-        if (!read && !loginPath && principal is not null)
-        {
-            journal.Append(principal, request.Method, path, context.Response.StatusCode);
-            AccessLog.Change(log, principal.Name, Roles.Id(principal.Role), principal.Method, request.Method, path, context.Response.StatusCode);
         }
     }
 
