@@ -8,7 +8,7 @@ namespace SoftSensor.Core.Flux;
 /// <summary>
 /// Reads a flux model from JSON. The file is an elemental-balance model ("name", "compounds",
 /// "balances", read by <see cref="ModelReader"/>, so the same file serves both) extended by the keys "metabolites", "reactions", "parameters", "splits" and
-/// "maintenance" (README, flux section); other top-level keys are left to their readers.
+/// "maintenance" (docs/flux.md); other top-level keys are left to their readers.
 /// Comments and trailing commas are allowed. Every error names the field.
 /// </summary>
 internal static class FluxModelReader

@@ -3,7 +3,7 @@ using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Batches;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Batches;
 

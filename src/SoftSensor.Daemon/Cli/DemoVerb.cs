@@ -24,7 +24,7 @@ internal sealed class DemoVerb : IVerb
         var duration = new Option<string?>("--for") { Description = "Stop after this much simulated time, e.g. 2h, 30m, 90s (default: the scenario's duration)" };
         var data = new Option<string>("--data") { Description = "Folder of the demo's store (demo.db, recreated each run)", DefaultValueFactory = _ => "data" };
         var command = new Command("demo", "Run the demo: embedded broker, virtual reactor in accelerated time, the daemon and its status page") { speed, duration, data };
-        var influx = new Timeseries.InfluxShortcutOptions();
+        var influx = new InfluxShortcutOptions();
         influx.AddTo(command);
         command.SetAction((parse, ct) =>
         {

@@ -14,14 +14,14 @@ internal sealed class RunVerb : IVerb
     {
         var config = new Option<string>("--config")
         {
-            Description = "Configuration file (JSON; README \"Running the daemon\" describes its keys)",
+            Description = "Configuration file (JSON; docs/configuration.md describes its keys)",
             Required = true,
         };
         var command = new Command("run", "Run the soft sensor daemon: one pipeline per configured reactor, MQTT in and out, embedded store, status page")
         {
             config,
         };
-        var influx = new Timeseries.InfluxShortcutOptions();
+        var influx = new InfluxShortcutOptions();
         influx.AddTo(command);
         command.TreatUnmatchedTokensAsErrors = false;
         command.SetAction(async (parse, ct) =>

@@ -10,7 +10,7 @@ internal sealed class SimulateVerb : IVerb
 {
     public Command Build()
     {
-        var scenario = new Option<string>("--scenario") { Description = "scenario file (JSON, see README: simulate)", Required = true };
+        var scenario = new Option<string>("--scenario") { Description = "scenario file (JSON, see docs/simulator.md)", Required = true };
         var outDir = new Option<string>("--out") { Description = "output folder for history.csv, truth.csv, offline.csv", Required = true };
         var seed = new Option<int?>("--seed") { Description = "seed of instrument errors and noise (default: the scenario's seed)" };
         var hours = new Option<double?>("--hours") { Description = "hours to simulate (default: the scenario's duration_h)" };

@@ -17,7 +17,7 @@ internal sealed class UserVerb : IVerb
 
     public Command Build()
     {
-        var file = new Option<string>("--file") { Description = "credentials file", DefaultValueFactory = _ => new AccessOptions().CredentialsFile };
+        var file = new Option<string>("--file") { Description = "credentials file", DefaultValueFactory = _ => new Configuration.AccessOptions().CredentialsFile };
         var name = new Argument<string>("name") { Description = "user or token name (1 to 64 of A-Z a-z 0-9 . _ @ -)" };
         var role = new Option<string>("--role") { Description = $"role: {Roles.Ids}", Required = true };
         var token = new Option<bool>("--token") { Description = "make a bearer token (printed once) instead of a password user" };

@@ -33,7 +33,7 @@ internal sealed class ReactorOptions
     public Core.Estimation.EstimatorSettings Estimator { get; set; } = new();
 
     /// <summary>Which rates besides OUR and CER enter the elemental balance (used when <see cref="ModelFile"/> is set).</summary>
-    public Replay.BalanceConfig Balance { get; set; } = new();
+    public BalanceConfig Balance { get; set; } = new();
 
     /// <summary>Batch lifecycle from the plant: fed-batch detection, phase codes, initial conditions of tag-started batches.</summary>
     public ReactorBatchOptions Batches { get; set; } = new();

@@ -26,10 +26,10 @@ internal sealed class SoftSensorOptions
     public StatusOptions Status { get; set; } = new();
 
     /// <summary>The OPC UA server (section <c>opcUa</c>; the adapter binds it too), checked here against the tags that use it.</summary>
-    public OpcUa.OpcUaOptions OpcUa { get; set; } = new();
+    public OpcUaOptions OpcUa { get; set; } = new();
 
     /// <summary>Who may use the status server (section <c>access</c>, docs/security.md).</summary>
-    public Access.AccessOptions Access { get; set; } = new();
+    public AccessOptions Access { get; set; } = new();
 }
 
 /// <summary>Section <c>store</c>: the embedded SQLite store.</summary>

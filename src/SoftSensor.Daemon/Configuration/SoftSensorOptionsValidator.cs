@@ -40,7 +40,7 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             ValidateGas(errors, key + ":gas", r.Gas);
             if (!string.IsNullOrWhiteSpace(r.ModelFile))
             {
-                errors.AddRange(Estimation.EstimatorSetup.Validate(key + ":estimator/balance", r.Estimator, r.Balance));
+                errors.AddRange(EstimatorSetup.Validate(key + ":estimator/balance", r.Estimator, r.Balance));
             }
             if (r.Tags.Count == 0)
             {

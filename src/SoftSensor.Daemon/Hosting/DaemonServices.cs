@@ -12,6 +12,7 @@ using SoftSensor.Daemon.Store;
 using SoftSensor.Daemon.Timeseries;
 using SoftSensor.Daemon.Alarming;
 using SoftSensor.Daemon.Batches;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Hosting;
 

@@ -7,7 +7,6 @@ using Microsoft.Extensions.Options;
 using MQTTnet;
 using MQTTnet.Protocol;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Status;
 
 namespace SoftSensor.Daemon.Mqtt;
 
@@ -201,7 +200,7 @@ internal sealed partial class MqttLink
             .WithWillQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce);
         if (_options.Username.Length > 0)
         {
-            b.WithCredentials(_options.Username, Access.MqttSecrets.Password(_options));
+            b.WithCredentials(_options.Username, MqttSecrets.Password(_options));
         }
 
         if (_options.Tls)
@@ -221,13 +220,13 @@ internal sealed partial class MqttLink
                 }
                 else if (_options.TlsCaFile.Length > 0)
                 {
-                    var ca = Access.MqttSecrets.LoadCa(_options.TlsCaFile);
-                    t.WithCertificateValidationHandler(a => Access.MqttSecrets.ValidateAgainst(ca, a.Certificate, a.SslPolicyErrors));
+                    var ca = MqttSecrets.LoadCa(_options.TlsCaFile);
+                    t.WithCertificateValidationHandler(a => MqttSecrets.ValidateAgainst(ca, a.Certificate, a.SslPolicyErrors));
                 }
 
                 if (_options.TlsClientCertificateFile.Length > 0)
                 {
-                    t.WithClientCertificates([Access.MqttSecrets.LoadClientCertificate(_options.TlsClientCertificateFile, _options.TlsClientKeyFile)]);
+                    t.WithClientCertificates([MqttSecrets.LoadClientCertificate(_options.TlsClientCertificateFile, _options.TlsClientKeyFile)]);
                 }
             });
         }

@@ -7,7 +7,7 @@ using Microsoft.Extensions.Options;
 using MQTTnet;
 using MQTTnet.Protocol;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Mqtt;
 

@@ -2,9 +2,8 @@ using System.Buffers;
 using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sources;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Mqtt;
 

@@ -4,7 +4,7 @@ using System.Text;
 using System.Text.Json;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.Mqtt;
 
@@ -174,7 +174,7 @@ internal static class PayloadDecoder
 
             if (!hasCode)
             {
-                code = StatusCodes.Of(quality);
+                code = quality switch { SampleQuality.Good => StatusCodes.Good, SampleQuality.Uncertain => StatusCodes.Uncertain, _ => StatusCodes.Bad };
             }
 
             reading = new RawReading(value, time, quality, code) { Text = asText };

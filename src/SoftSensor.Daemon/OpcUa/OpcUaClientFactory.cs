@@ -2,6 +2,7 @@ using Microsoft.Extensions.Logging;
 using SoftSensor.OpcUa.Client;
 using SoftSensor.OpcUa.Session;
 using SoftSensor.OpcUa.Subscriptions;
+using SoftSensor.Daemon.Configuration;
 
 namespace SoftSensor.Daemon.OpcUa;
 

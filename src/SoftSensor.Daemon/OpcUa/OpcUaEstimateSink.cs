@@ -2,9 +2,11 @@ using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Sinks;
-using SoftSensor.Daemon.Status;
 using SoftSensor.OpcUa.Encoding;
 using SoftSensor.OpcUa.Subscriptions;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Contracts;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.OpcUa;
 

@@ -2,11 +2,10 @@ using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sources;
-using SoftSensor.Daemon.Status;
 using SoftSensor.OpcUa.Services;
 using SoftSensor.OpcUa.Subscriptions;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.OpcUa;
 

@@ -1,7 +1,8 @@
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
-using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Sinks;
+using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.OpcUa;
 

@@ -2,6 +2,7 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.OpcUa.Client;
+using SoftSensor.Daemon.Configuration;
 
 namespace SoftSensor.Daemon.OpcUa;
 

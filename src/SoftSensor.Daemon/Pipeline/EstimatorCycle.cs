@@ -2,7 +2,7 @@ using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Signals;
 using SoftSensor.Core.Stoichiometry;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Estimation;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

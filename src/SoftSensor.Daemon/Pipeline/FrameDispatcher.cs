@@ -3,7 +3,7 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Sinks;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

@@ -1,6 +1,8 @@
 using SoftSensor.Core.Gas;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
+using SoftSensor.Daemon.Contracts;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.Pipeline;
 

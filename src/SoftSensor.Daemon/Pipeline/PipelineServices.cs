@@ -1,5 +1,5 @@
 using Microsoft.Extensions.Logging;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

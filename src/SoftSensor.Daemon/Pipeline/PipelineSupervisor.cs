@@ -2,7 +2,7 @@ using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

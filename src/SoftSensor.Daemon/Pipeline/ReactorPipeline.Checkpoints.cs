@@ -1,3 +1,5 @@
+using SoftSensor.Daemon.Contracts;
+
 namespace SoftSensor.Daemon.Pipeline;
 
 /// <summary>Checkpoints of the pipeline: the cycle's state, the batch it belongs to and the input samples still held.</summary>

@@ -4,7 +4,7 @@ using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Sources;
-using SoftSensor.Daemon.Status;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

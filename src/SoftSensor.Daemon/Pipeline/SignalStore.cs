@@ -1,4 +1,6 @@
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Contracts;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.Pipeline;
 

@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using SoftSensor.Core.Signals;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Pipeline;
 

@@ -2,7 +2,7 @@ using System.Text.Json;
 using System.Text.Json.Serialization;
 using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Gas;
-using SoftSensor.Daemon.Estimation;
+using SoftSensor.Daemon.Configuration;
 
 namespace SoftSensor.Daemon.Replay;
 

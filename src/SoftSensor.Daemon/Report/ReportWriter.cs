@@ -91,7 +91,7 @@ internal static class ReportWriter
         h.Append("<h2>Methods</h2>\n<p>OUR and CER from the inert-gas balance (CER is the CO2 transfer rate; no dissolved-CO2 correction); ")
          .Append("reconciliation and the χ² consistency test of the elemental balances (Wang &amp; Stephanopoulos 1983; van der Heijden et al. 1994); ")
          .Append("biomass by integrating the reconciled growth rate, corrected by offline samples with a Kalman update; a second observer: ")
-         .Append("an extended Kalman filter with Pirt's law for OUR (Jenzsch et al. 2006). See the README, section replay.</p>\n</body></html>\n");
+         .Append("an extended Kalman filter with Pirt's law for OUR (Jenzsch et al. 2006). See docs/replay.md.</p>\n</body></html>\n");
         File.WriteAllText(Path.Combine(dir, "report.html"), h.ToString(), new UTF8Encoding(false));
     }
 

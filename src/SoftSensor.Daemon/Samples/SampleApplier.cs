@@ -1,6 +1,6 @@
 using Microsoft.Extensions.Logging;
 using SoftSensor.Core.Estimation;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Samples;
 

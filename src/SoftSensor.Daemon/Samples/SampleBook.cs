@@ -1,9 +1,8 @@
 using System.Diagnostics.Metrics;
 using Microsoft.Data.Sqlite;
 using SoftSensor.Core.Estimation;
-using SoftSensor.Daemon.Pipeline;
-using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Store;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Samples;
 

@@ -4,7 +4,6 @@ using Microsoft.AspNetCore.Routing;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Options;
 using SoftSensor.Daemon.Configuration;
-using static SoftSensor.Daemon.Status.StatusDocuments;
 
 namespace SoftSensor.Daemon.Samples;
 
@@ -49,4 +48,6 @@ internal static class SampleEndpoints
     private static IResult? Unknown(SoftSensorOptions o, string reactor) =>
         o.Reactors.Any(r => r.Id == reactor) ? null
         : Results.NotFound(new { problems = new[] { $"reactor is '{reactor}' (expected one of {string.Join(", ", o.Reactors.Select(r => r.Id))})" } });
+
+    private static double? Finite(double v) => double.IsFinite(v) ? v : null;
 }

@@ -2,6 +2,7 @@ using System.Collections.Concurrent;
 using System.Diagnostics.Metrics;
 using System.Globalization;
 using System.Text;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Status;
 

@@ -1,6 +1,6 @@
 using Microsoft.Data.Sqlite;
 using SoftSensor.Core.Signals;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Store;
 
@@ -48,62 +48,6 @@ internal sealed partial class SqliteStore
         object? v = c.ExecuteScalar();
         DateTimeOffset? t = v is long ms ? DateTimeOffset.FromUnixTimeMilliseconds(ms) : null;
         return ValueTask.FromResult(t);
-    }
-
-    /// <summary>Frames with id above <paramref name="afterId"/>, oldest first, at most <paramref name="limit"/> (the outbox read).</summary>
-    public ValueTask<IReadOnlyList<StoredFrame>> FramesAfterAsync(long afterId, int limit, CancellationToken cancellationToken)
-    {
-        cancellationToken.ThrowIfCancellationRequested();
-        using var conn = OpenReader();
-        var frames = new List<(long Id, string Reactor, string Batch, long Ms, int Quality, string Phase)>();
-        using (var c = conn.CreateCommand())
-        {
-            c.CommandText = "SELECT id, reactor, batch, time_ms, quality, phase FROM frames WHERE id > $a ORDER BY id LIMIT $l";
-            c.Parameters.AddWithValue("$a", afterId);
-            c.Parameters.AddWithValue("$l", limit);
-            using var r = c.ExecuteReader();
-            while (r.Read())
-            {
-                frames.Add((r.GetInt64(0), r.GetString(1), r.GetString(2), r.GetInt64(3), r.GetInt32(4), r.GetString(5)));
-            }
-        }
-
-        var values = new Dictionary<long, List<EstimateValue>>();
-        if (frames.Count > 0)
-        {
-            using var c = conn.CreateCommand();
-            c.CommandText = "SELECT frame_id, reactor, name, time_ms, value, sigma, unit, quality, status_code FROM estimates WHERE frame_id BETWEEN $a AND $b ORDER BY rowid";
-            c.Parameters.AddWithValue("$a", frames[0].Id);
-            c.Parameters.AddWithValue("$b", frames[^1].Id);
-            using var r = c.ExecuteReader();
-            while (r.Read())
-            {
-                var e = ReadEstimate(r);
-                if (!values.TryGetValue(e.FrameId, out var list))
-                {
-                    values[e.FrameId] = list = [];
-                }
-
-                list.Add(new EstimateValue(e.Name, e.Value, e.Unit, e.Sigma, e.Quality, e.StatusCode));
-            }
-        }
-
-        IReadOnlyList<StoredFrame> result = frames.Select(f => new StoredFrame(
-            f.Id,
-            new EstimateFrame(f.Reactor, f.Batch, DateTimeOffset.FromUnixTimeMilliseconds(f.Ms), (SampleQuality)f.Quality, values.TryGetValue(f.Id, out var v) ? v : []) { Phase = f.Phase }))
-            .ToList();
-        return ValueTask.FromResult(result);
-    }
-
-    /// <summary>The newest frame id <paramref name="target"/> acknowledged (0 when none).</summary>
-    public ValueTask<long> OutboxCursorAsync(string target, CancellationToken cancellationToken)
-    {
-        cancellationToken.ThrowIfCancellationRequested();
-        using var conn = OpenReader();
-        using var c = conn.CreateCommand();
-        c.CommandText = "SELECT frame_id FROM outbox_cursors WHERE target = $t";
-        c.Parameters.AddWithValue("$t", target);
-        return ValueTask.FromResult(c.ExecuteScalar() is long id ? id : 0L);
     }
 
     /// <summary>Alarm changes of a reactor in a time range, oldest first.</summary>

@@ -2,16 +2,14 @@ using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Options;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
-using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Store;
 
 /// <summary>
 /// The embedded store (SQLite in WAL mode, <see cref="StoreSchema"/>): every estimate frame and alarm
-/// change, queryable by reactor, name and time range; estimator checkpoints; and the durable outbox
-/// for forwarders (a frame is stored before any network sink sees it; a forwarder reads
-/// <see cref="FramesAfterAsync"/> from its cursor and advances the cursor only once its target
-/// acknowledged). Writes go through one connection, one at a time; reads open their own pooled
+/// change, queryable by reactor, name and time range; and estimator checkpoints (a frame is stored
+/// before any network sink sees it). Writes go through one connection, one at a time; reads open their own pooled
 /// connections and run beside the writer (WAL). The writer never checkpoints the WAL itself
 /// (<c>wal_autocheckpoint=0</c>): a PASSIVE checkpoint runs every second on its own connection, off
 /// the dispatch path, so the fsync of a checkpoint never stalls a frame on its way to MQTT.
@@ -214,28 +212,6 @@ internal sealed partial class SqliteStore : ICheckpointStore, IDisposable
             c.Parameters.AddWithValue("$c", checkpoint.Cycle);
             c.Parameters.AddWithValue("$t", checkpoint.Time.ToUnixTimeMilliseconds());
             c.Parameters.AddWithValue("$s", checkpoint.State);
-            c.ExecuteNonQuery();
-        }
-        finally
-        {
-            _writeGate.Release();
-        }
-    }
-
-    /// <summary>Records that <paramref name="target"/> acknowledged every frame up to <paramref name="frameId"/> (never moves back).</summary>
-    public async ValueTask AdvanceOutboxAsync(string target, long frameId, CancellationToken cancellationToken)
-    {
-        await _writeGate.WaitAsync(cancellationToken);
-        try
-        {
-            using var c = _writer.CreateCommand();
-            c.CommandText = """
-                INSERT INTO outbox_cursors (target, frame_id, updated_ms) VALUES ($t, $f, $u)
-                ON CONFLICT (target) DO UPDATE SET frame_id = max(frame_id, excluded.frame_id), updated_ms = excluded.updated_ms
-                """;
-            c.Parameters.AddWithValue("$t", target);
-            c.Parameters.AddWithValue("$f", frameId);
-            c.Parameters.AddWithValue("$u", _time.GetUtcNow().ToUnixTimeMilliseconds());
             c.ExecuteNonQuery();
         }
         finally

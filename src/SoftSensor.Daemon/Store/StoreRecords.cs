@@ -14,8 +14,6 @@ internal readonly record struct StoredEstimate(
     SampleQuality Quality,
     uint StatusCode);
 
-/// <summary>One stored frame with its id (the outbox's order).</summary>
-internal sealed record StoredFrame(long Id, EstimateFrame Frame);
 
 /// <summary>
 /// One alarm state change as the store keeps it (the alarm engine maps its own types onto this).

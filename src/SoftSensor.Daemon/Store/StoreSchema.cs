@@ -8,7 +8,6 @@ namespace SoftSensor.Daemon.Store;
 /// <item><c>estimates</c>: one row per value of a frame, indexed by frame only (a query by reactor and time goes through <c>frames</c>: one index entry per value that lands at the end of its index, not thirteen spread over a reactor-and-name index, which at a thousand reactors was two thirds of the store's write time, StoreWriteBenchmarks).</item>
 /// <item><c>alarms</c>: every alarm state change (the active ones are the newest row per alarm with active = 1).</item>
 /// <item><c>checkpoints</c>: estimator state per reactor, newest last, with the batch it belongs to (version 2).</item>
-/// <item><c>outbox_cursors</c>: per forwarding target (e.g. the time-series database), the id of the newest frame it acknowledged.</item>
 /// </list>
 /// </summary>
 internal static class StoreSchema
@@ -62,11 +61,6 @@ internal static class StoreSchema
             inputs    TEXT
         );
         CREATE INDEX IF NOT EXISTS checkpoints_by_reactor ON checkpoints (reactor, id);
-        CREATE TABLE IF NOT EXISTS outbox_cursors (
-            target     TEXT    PRIMARY KEY,
-            frame_id   INTEGER NOT NULL,
-            updated_ms INTEGER NOT NULL
-        );
         """;
 
     /// <summary>Brings a version 1 file up to date (SQLite's CREATE IF NOT EXISTS keeps old tables as they were).</summary>

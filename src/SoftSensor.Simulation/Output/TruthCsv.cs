@@ -3,7 +3,7 @@ using SoftSensor.Simulation.Scenarios;
 
 namespace SoftSensor.Simulation.Output;
 
-/// <summary>Columns of truth.csv (README section "simulate" lists them with units).</summary>
+/// <summary>Columns of truth.csv (docs/simulator.md lists them with units).</summary>
 internal static class TruthCsv
 {
     private static readonly string[] Fixed =

@@ -2,7 +2,7 @@ using System.Text.Json.Serialization;
 
 namespace SoftSensor.Simulation.Scenarios;
 
-// The scenario file format of this project (snake_case keys; README section "simulate").
+// The scenario file format of this project (snake_case keys; docs/simulator.md).
 // Every record is plain data; ScenarioLoader reads and validates it, naming the key at fault.
 
 /// <summary>One virtual fed-batch run: vessel, culture, feed, gas, instruments, faults, samples.</summary>

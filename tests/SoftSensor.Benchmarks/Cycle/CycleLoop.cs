@@ -8,7 +8,7 @@ namespace SoftSensor.Benchmarks.Cycle;
 /// <c>dotnet tests/SoftSensor.Benchmarks/bin/Release/net10.0/SoftSensor.Benchmarks.dll loop N [co2Factor]</c>.
 /// Instruction counts of two runs with different N, divided by their difference in N, give the
 /// instructions of one cycle without start-up and JIT. Not a benchmark: BenchmarkDotNet's
-/// <see cref="CycleBenchmarks"/> gives the figure the README quotes.
+/// <see cref="CycleBenchmarks"/> gives the figure docs/performance.md quotes.
 /// </summary>
 internal static class CycleLoop
 {

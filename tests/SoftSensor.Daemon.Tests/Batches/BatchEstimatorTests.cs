@@ -4,6 +4,7 @@ using SoftSensor.Daemon.Batches;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Store;
 using SoftSensor.Daemon.Tests.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Batches;
 

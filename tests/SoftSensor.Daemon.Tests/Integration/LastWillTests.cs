@@ -5,6 +5,7 @@ using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Mqtt;
 using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Tests.Fixtures;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Integration;
 

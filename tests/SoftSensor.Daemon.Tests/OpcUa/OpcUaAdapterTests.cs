@@ -11,6 +11,8 @@ using SoftSensor.Daemon.Status;
 using SoftSensor.OpcUa.Encoding;
 using SoftSensor.OpcUa.Session;
 using SoftSensor.OpcUa.Tests.Peers;
+using SoftSensor.Daemon.Contracts;
+using StatusCodes = SoftSensor.OpcUa.Encoding.StatusCodes;
 
 namespace SoftSensor.Daemon.Tests.OpcUa;
 

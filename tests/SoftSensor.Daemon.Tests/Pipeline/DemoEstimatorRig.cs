@@ -10,6 +10,7 @@ using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Status;
 using SoftSensor.Simulation;
 using SoftSensor.Simulation.Scenarios;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Pipeline;
 

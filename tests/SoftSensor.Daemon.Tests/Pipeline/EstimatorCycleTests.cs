@@ -1,6 +1,7 @@
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Pipeline;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Pipeline;
 

@@ -8,6 +8,7 @@ using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Status;
 using SoftSensor.Daemon.Tests.Fixtures;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Pipeline;
 

@@ -4,6 +4,7 @@ using Microsoft.Extensions.Time.Testing;
 using SoftSensor.Core.Estimation;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Samples;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Samples;
 

@@ -1,6 +1,7 @@
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Pipeline;
 using SoftSensor.Daemon.Store;
+using SoftSensor.Daemon.Contracts;
 
 namespace SoftSensor.Daemon.Tests.Store;
 
@@ -42,25 +43,6 @@ public sealed class SqliteStoreTests : IDisposable
         Assert.True(double.IsNaN(rq[0].Value));
         Assert.Equal(SampleQuality.Uncertain, rq[0].Quality);
         Assert.Equal(0x40940000u, rq[0].StatusCode);
-    }
-
-    [Fact]
-    public async Task FramesAfter_and_outbox_cursor_give_each_frame_once_in_order()
-    {
-        for (int s = 0; s < 5; s++)
-        {
-            await _store.WriteFrameAsync(Frame("r1", s, s), default);
-        }
-
-        long cursor = await _store.OutboxCursorAsync("tsdb", default);
-        var first = await _store.FramesAfterAsync(cursor, 3, default);
-        await _store.AdvanceOutboxAsync("tsdb", first[^1].Id, default);
-        var rest = await _store.FramesAfterAsync(await _store.OutboxCursorAsync("tsdb", default), 10, default);
-        await _store.AdvanceOutboxAsync("tsdb", 1, default); // never moves back
-
-        Assert.Equal([0.0, 1.0, 2.0, 3.0, 4.0], first.Concat(rest).Select(f => f.Frame.Values[0].Value));
-        Assert.Equal(2, first[0].Frame.Values.Count);
-        Assert.Equal(first[^1].Id, await _store.OutboxCursorAsync("tsdb", default));
     }
 
     [Fact]

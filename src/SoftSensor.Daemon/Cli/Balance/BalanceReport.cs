@@ -3,7 +3,7 @@ using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Daemon.Cli.Balance;
 
-/// <summary>The --json document of <c>softsensor balance</c> (README, section balance).</summary>
+/// <summary>The --json document of <c>softsensor balance</c> (docs/balance.md).</summary>
 internal sealed record BalanceReport
 {
     public required string Model { get; init; }

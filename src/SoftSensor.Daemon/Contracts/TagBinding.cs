@@ -1,7 +1,7 @@
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
 
-namespace SoftSensor.Daemon.Pipeline;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>A tag of a reactor's map, compiled from <see cref="TagOptions"/> after validation.</summary>
 internal sealed record TagBinding(

@@ -1,4 +1,4 @@
-namespace SoftSensor.Daemon.Pipeline;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>An estimator state checkpoint of one reactor.</summary>
 /// <param name="Reactor">Reactor id.</param>

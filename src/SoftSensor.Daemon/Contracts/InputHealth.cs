@@ -1,6 +1,6 @@
 using SoftSensor.Core.Signals;
 
-namespace SoftSensor.Daemon.Pipeline;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>What the signal store knew of one input at a cycle: shown on the status page and used for quality.</summary>
 /// <param name="Tag">Plant tag name.</param>
@@ -30,31 +30,4 @@ internal enum InputState
     Waiting,
     /// <summary>The newest usable value is older than the tag's maximum age (BadNoCommunication).</summary>
     Stale,
-}
-
-/// <summary>OPC UA status codes used for estimates (OPC UA Part 8 §7.3.2, as listed in INTEGRATION.md).</summary>
-internal static class StatusCodes
-{
-    public const uint Good = 0x00000000;
-    public const uint UncertainLastUsableValue = 0x40900000;
-    public const uint UncertainInitialValue = 0x40920000;
-    public const uint UncertainSensorNotAccurate = 0x40930000;
-    public const uint UncertainEngineeringUnitsExceeded = 0x40940000;
-    public const uint UncertainSubNormal = 0x40950000;
-    public const uint BadNoCommunication = 0x80310000;
-    public const uint BadWaitingForInitialData = 0x80320000;
-    public const uint BadConfigurationError = 0x80890000;
-    public const uint BadOutOfService = 0x808D0000;
-
-    /// <summary>Generic codes for a bare severity (Part 4 §7.39: top two bits).</summary>
-    public const uint Uncertain = 0x40000000;
-    public const uint Bad = 0x80000000;
-
-    /// <summary>The generic code of a severity.</summary>
-    public static uint Of(SampleQuality quality) => quality switch
-    {
-        SampleQuality.Good => Good,
-        SampleQuality.Uncertain => Uncertain,
-        _ => Bad,
-    };
 }

@@ -1,7 +1,7 @@
 using SoftSensor.Daemon.Configuration;
 using SoftSensor.Daemon.Sources;
 
-namespace SoftSensor.Daemon.Pipeline;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>
 /// Makes the sample sources of a reactor. Every factory registered in DI is asked; each returns the

@@ -2,7 +2,7 @@ using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Signals;
 using SoftSensor.Daemon.Configuration;
 
-namespace SoftSensor.Daemon.Pipeline;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>
 /// The computation of one reactor's cycle: aligned inputs (and the estimator's own state) in,

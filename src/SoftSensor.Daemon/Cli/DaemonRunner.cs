@@ -1,8 +1,8 @@
 using Microsoft.AspNetCore.Builder;
 using Microsoft.Extensions.Options;
-using SoftSensor.Daemon.Cli;
+using SoftSensor.Daemon.Hosting;
 
-namespace SoftSensor.Daemon.Hosting;
+namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
 /// Starts a daemon host and runs it until cancelled, turning configuration errors into the CLI's

@@ -1,4 +1,4 @@
-namespace SoftSensor.Daemon.Access;
+namespace SoftSensor.Daemon.Configuration;
 
 /// <summary>
 /// Section <c>access</c>: who may use the status server (docs/security.md). Users and bearer tokens

@@ -1,9 +1,8 @@
 using SoftSensor.Core.Estimation;
 using SoftSensor.Core.Gas;
 using SoftSensor.Core.Stoichiometry;
-using SoftSensor.Daemon.Replay;
 
-namespace SoftSensor.Daemon.Estimation;
+namespace SoftSensor.Daemon.Configuration;
 
 /// <summary>
 /// What the live daemon and the replay share to build the one <see cref="Cycle"/>: the cycle

@@ -1,7 +1,7 @@
 using System.CommandLine;
 using SoftSensor.Daemon.Cli;
 
-namespace SoftSensor.Daemon.Timeseries;
+namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
 /// <c>--influx URL</c>, <c>--influx-org</c>, <c>--influx-bucket</c> on <c>run</c> and <c>demo</c>:

@@ -1,6 +1,6 @@
 using System.Diagnostics.Metrics;
 
-namespace SoftSensor.Daemon.Status;
+namespace SoftSensor.Daemon.Contracts;
 
 /// <summary>
 /// The daemon's instruments (System.Diagnostics.Metrics), exported as Prometheus text at /metrics by

@@ -1,4 +1,4 @@
-namespace SoftSensor.Daemon.OpcUa;
+namespace SoftSensor.Daemon.Configuration;
 
 /// <summary>
 /// Section <c>opcUa</c>: the OPC UA server the tags with an <c>opcUaNode</c> are read from, and the

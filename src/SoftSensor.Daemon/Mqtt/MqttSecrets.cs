@@ -2,7 +2,7 @@ using System.Net.Security;
 using System.Security.Cryptography.X509Certificates;
 using SoftSensor.Daemon.Configuration;
 
-namespace SoftSensor.Daemon.Access;
+namespace SoftSensor.Daemon.Mqtt;
 
 /// <summary>
 /// The MQTT link's secrets and certificates: the password from the environment or
