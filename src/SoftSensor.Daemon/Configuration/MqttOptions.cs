@@ -47,4 +47,10 @@ internal sealed class MqttOptions
 
     /// <summary>Longest reconnect delay.</summary>
     public TimeSpan ReconnectMaxDelay { get; set; } = TimeSpan.FromSeconds(30);
+
+    /// <summary>Oldest source timestamp a tag payload may carry, before the daemon's clock (older: refused and counted).</summary>
+    public TimeSpan TimestampWindowPast { get; set; } = TimeSpan.FromDays(1);
+
+    /// <summary>Newest source timestamp a tag payload may carry, after the daemon's clock (clock skew allowance).</summary>
+    public TimeSpan TimestampWindowFuture { get; set; } = TimeSpan.FromMinutes(5);
 }

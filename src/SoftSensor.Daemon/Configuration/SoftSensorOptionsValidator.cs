@@ -269,6 +269,11 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             errors.Add($"{key}:topicPrefix is '{m.TopicPrefix}' (expected topic levels without a leading or trailing '/' or wildcards, e.g. softsensor)");
         }
 
+        if (m.TimestampWindowPast <= TimeSpan.Zero || m.TimestampWindowFuture < TimeSpan.Zero)
+        {
+            errors.Add($"{key}:timestampWindowPast is {m.TimestampWindowPast} and {key}:timestampWindowFuture is {m.TimestampWindowFuture} (expected above 0 and 0 or more)");
+        }
+
         if (m.PingInterval < TimeSpan.FromMilliseconds(100))
         {
             errors.Add($"{key}:pingInterval is {m.PingInterval} (expected 00:00:00.1 or more)");
