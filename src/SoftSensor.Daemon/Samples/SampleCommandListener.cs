@@ -46,6 +46,11 @@ internal sealed class SampleCommandListener(MqttLink link, SampleBook book, Samp
 
     private async ValueTask HandleAsync(string reactor, ReadOnlySequence<byte> payload)
     {
+        if (!CommandPayloadLimit.Allows(logger, CommandTopic(options.Value, reactor), payload.Length))
+        {
+            return;
+        }
+
         var (record, problems) = intake.Enter(reactor, payload.ToArray(), "mqtt");
         if (record is null)
         {
