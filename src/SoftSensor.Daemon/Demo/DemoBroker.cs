@@ -48,6 +48,7 @@ internal sealed class DemoBroker : IAsyncDisposable
             if (string.IsNullOrEmpty(e.ClientId))
             {
                 e.AssignedClientIdentifier = "demo-" + Guid.NewGuid().ToString("N")[..12];
+                e.ReasonCode = MQTTnet.Protocol.MqttConnectReasonCode.Success;
             }
 
             return Task.CompletedTask;
