@@ -12,7 +12,7 @@ namespace SoftSensor.Daemon.Alarming;
 /// as in <see cref="AlarmCommandPayload"/>. The outcome goes to <c>.../command/alarm/result</c>
 /// (not retained): applied with the transitions, or refused with the reason.
 /// </summary>
-internal sealed class AlarmCommandListener(MqttLink link, AlarmService alarms, IOptions<SoftSensorOptions> options) : IHostedService
+internal sealed class AlarmCommandListener(MqttLink link, AlarmService alarms, IOptions<SoftSensorOptions> options, Microsoft.Extensions.Logging.ILogger<AlarmCommandListener> logger) : IHostedService
 {
     public static string CommandTopic(SoftSensorOptions o, string reactor) => $"{o.Mqtt.TopicPrefix}/{o.Site}/{o.Area}/{reactor}/command/alarm";
 
@@ -39,6 +39,11 @@ internal sealed class AlarmCommandListener(MqttLink link, AlarmService alarms, I
 
     private async ValueTask HandleAsync(string reactor, string topic, ReadOnlySequence<byte> payload)
     {
+        if (!CommandPayloadLimit.Allows(logger, topic, payload.Length))
+        {
+            return;
+        }
+
         var result = await alarms.CommandAsync(payload.ToArray(), reactor, CancellationToken.None);
         var reply = new AlarmCommandReply(result.Applied, result.Message,
             [.. result.Transitions.Select(t => new AlarmCommandReplyItem(t.RuleId, Core.Alarms.AlarmStates.Id(t.From), Core.Alarms.AlarmStates.Id(t.To)))]);

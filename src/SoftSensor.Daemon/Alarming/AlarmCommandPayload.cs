@@ -14,7 +14,7 @@ internal static class AlarmCommandPayload
     private const int MaxOperatorLength = 64;
 
     /// <summary>The parsed command and its reactor (null when the payload did not name one), or an error naming the field.</summary>
-    public static bool TryParse(ReadOnlySpan<byte> json, DateTimeOffset now, out AlarmCommand command, out string? reactor, out string error)
+    public static bool TryParse(ReadOnlySpan<byte> json, DateTimeOffset now, out AlarmCommand command, out string? reactor, out string error, string? user = null)
     {
         command = null!;
         reactor = null;
@@ -42,7 +42,7 @@ internal static class AlarmCommandPayload
 
             string? verb = Text(root, "command");
             string? alarm = Text(root, "alarm");
-            string op = Text(root, "operator") ?? "";
+            string op = user ?? Text(root, "operator") ?? "";
             reactor = Text(root, "reactor");
             AlarmCommandKind? kind = verb switch
             {

@@ -14,6 +14,15 @@ namespace SoftSensor.Daemon.Alarming;
 /// </summary>
 internal static class AlarmEndpoints
 {
+    /// <summary>The status page's alarm panel script (embedded resource).</summary>
+    private static readonly Lazy<string> Panel = new(() =>
+    {
+        using var s = typeof(AlarmEndpoints).Assembly.GetManifestResourceStream("SoftSensor.Daemon.Alarming.AlarmPanel.js")
+            ?? throw new InvalidOperationException("embedded resource SoftSensor.Daemon.Alarming.AlarmPanel.js is missing from the build");
+        using var r = new StreamReader(s);
+        return r.ReadToEnd();
+    });
+
     public static void MapAlarmEndpoints(this IEndpointRouteBuilder app)
     {
         if (app.ServiceProvider.GetService<AlarmService>() is null)
@@ -21,6 +30,7 @@ internal static class AlarmEndpoints
             return; // no rules configured
         }
 
+        app.MapGet("/alarm-panel.js", () => Results.Text(Panel.Value, "text/javascript; charset=utf-8"));
         app.MapGet("/api/alarm-states", (AlarmService alarms) => Results.Json(alarms.Engine.States(), AlarmPayloads.Json));
         app.MapGet("/api/alarm-journal", (string? reactor, int? limit, AlarmService alarms) =>
             Results.Json(alarms.Journal.Recent(reactor, Math.Clamp(limit ?? 100, 1, 10_000))
@@ -36,7 +46,7 @@ internal static class AlarmEndpoints
                 return Results.Json(new AlarmCommandReply(false, "alarm command: body above 4096 bytes", []), AlarmPayloads.Json, statusCode: 400);
             }
 
-            var result = await alarms.CommandAsync(body.ToArray(), null, ct);
+            var result = await alarms.CommandAsync(body.ToArray(), null, ct, Access.AccessMiddleware.UserName(request.HttpContext));
             var reply = new AlarmCommandReply(result.Applied, result.Message,
                 [.. result.Transitions.Select(t => new AlarmCommandReplyItem(t.RuleId, AlarmStates.Id(t.From), AlarmStates.Id(t.To)))]);
             int status = result.Applied ? 200 : result.Message.StartsWith("alarm command:", StringComparison.Ordinal) ? 400 : 409;

@@ -39,10 +39,13 @@ internal sealed class AlarmService(
         await CommitAsync(changes, cancellationToken);
     }
 
-    /// <summary>Parses and applies an operator command; the result says what happened or why not.</summary>
-    public async ValueTask<AlarmCommandResult> CommandAsync(ReadOnlyMemory<byte> json, string? reactorFromTopic, CancellationToken cancellationToken)
+    /// <summary>
+    /// Parses and applies an operator command; the result says what happened or why not. <paramref name="user"/>,
+    /// the status server's authenticated user, is who the journal names (the payload's operator is then not needed and not used).
+    /// </summary>
+    public async ValueTask<AlarmCommandResult> CommandAsync(ReadOnlyMemory<byte> json, string? reactorFromTopic, CancellationToken cancellationToken, string? user = null)
     {
-        if (!AlarmCommandPayload.TryParse(json.Span, time.GetUtcNow(), out var command, out string? reactor, out string error))
+        if (!AlarmCommandPayload.TryParse(json.Span, time.GetUtcNow(), out var command, out string? reactor, out string error, user))
         {
             AlarmLog.CommandRefused(log, reactorFromTopic ?? reactor ?? "?", error);
             return AlarmCommandResult.Refused(error);

@@ -14,7 +14,7 @@ namespace SoftSensor.Daemon.Batches;
 /// or <c>{"command": "end"}</c>.
 /// The outcome goes to <c>.../command/batch/result</c> (not retained): the batch, or every problem.
 /// </summary>
-internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptions<SoftSensorOptions> options) : IHostedService
+internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptions<SoftSensorOptions> options, Microsoft.Extensions.Logging.ILogger<BatchCommandListener> logger) : IHostedService
 {
     private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web);
 
@@ -42,20 +42,36 @@ internal sealed class BatchCommandListener(MqttLink link, BatchBook book, IOptio
 
     private async ValueTask HandleAsync(string reactor, string topic, ReadOnlySequence<byte> payload)
     {
+        if (!CommandPayloadLimit.Allows(logger, topic, payload.Length))
+        {
+            return;
+        }
+
         var reply = Apply(reactor, payload.ToArray());
         await link.PublishAsync(topic + "/result", JsonSerializer.SerializeToUtf8Bytes(reply, Json), retain: false, CancellationToken.None);
     }
 
-    private BatchCommandReply Apply(string reactor, byte[] payload)
+    /// <summary>The command in a payload, or why it is none (pure; never throws).</summary>
+    public static (BatchCommand? Command, string? Problem) Parse(ReadOnlySpan<byte> payload)
     {
-        BatchCommand? command;
         try
         {
-            command = JsonSerializer.Deserialize<BatchCommand>(payload, Json);
+            var command = JsonSerializer.Deserialize<BatchCommand>(payload, Json);
+            return command?.Command is "start" or "end" or "phase" ? (command, null)
+                : (null, $"command is '{command?.Command}' (expected start, phase or end)");
         }
         catch (JsonException e)
         {
-            return new BatchCommandReply(false, null, [$"payload is not a batch command: {e.Message}"]);
+            return (null, $"payload is not a batch command: {e.Message}");
+        }
+    }
+
+    private BatchCommandReply Apply(string reactor, byte[] payload)
+    {
+        var (command, parseProblem) = Parse(payload);
+        if (command is null)
+        {
+            return new BatchCommandReply(false, null, [parseProblem!]);
         }
 
         switch (command?.Command)

@@ -28,14 +28,14 @@ internal static class BatchEndpoints
             Known(o.Value, reactor) is { } bad ? bad
             : book.Current(reactor) is { } run ? Results.Ok(run)
             : Results.NotFound(new { problems = new[] { $"reactor '{reactor}' has no open batch" }, configuredBatchId = o.Value.Reactors.First(r => r.Id == reactor).BatchId }));
-        app.MapPost("/api/batches/{reactor}/start", (string reactor, BatchStart body, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        app.MapPost("/api/batches/{reactor}/start", (string reactor, BatchStart body, HttpContext context, BatchBook book, IOptions<SoftSensorOptions> o) =>
         {
             if (Known(o.Value, reactor) is { } bad)
             {
                 return bad;
             }
 
-            var (run, problems) = book.Start(reactor, body);
+            var (run, problems) = book.Start(reactor, body with { Source = Access.AccessMiddleware.UserName(context) ?? body.Source });
             return run is null ? Results.BadRequest(new { problems }) : Results.Ok(run);
         });
         app.MapPost("/api/batches/{reactor}/end", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>
@@ -48,14 +48,14 @@ internal static class BatchEndpoints
             var (run, problem) = book.End(reactor);
             return run is null ? Results.BadRequest(new { problems = new[] { problem } }) : Results.Ok(run);
         });
-        app.MapPost("/api/batches/{reactor}/phase", (string reactor, PhaseCommand body, BatchBook book, IOptions<SoftSensorOptions> o) =>
+        app.MapPost("/api/batches/{reactor}/phase", (string reactor, PhaseCommand body, HttpContext context, BatchBook book, IOptions<SoftSensorOptions> o) =>
         {
             if (Known(o.Value, reactor) is { } bad)
             {
                 return bad;
             }
 
-            var (run, problem) = book.SetPhase(reactor, body.Phase, "operator");
+            var (run, problem) = book.SetPhase(reactor, body.Phase, Access.AccessMiddleware.UserName(context) ?? "operator");
             return run is null ? Results.BadRequest(new { problems = new[] { problem } }) : Results.Ok(run);
         });
         app.MapGet("/api/batches/{reactor}/phases", (string reactor, BatchBook book, IOptions<SoftSensorOptions> o) =>

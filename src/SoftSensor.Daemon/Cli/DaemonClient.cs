@@ -51,6 +51,12 @@ internal sealed class DaemonClient
         TextWriter output, TextWriter error, CancellationToken ct)
     {
         using var http = new HttpClient { BaseAddress = target.Url, Timeout = TimeSpan.FromSeconds(10) };
+        // The bearer token: SOFTSENSOR_TOKEN, else the file SOFTSENSOR_TOKEN_FILE names (docs/security.md).
+        if (Access.ClientToken.FromEnvironment() is { Length: > 0 } bearer)
+        {
+            http.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", bearer);
+        }
+
         HttpResponseMessage response;
         try
         {

@@ -65,6 +65,7 @@ internal static class DemoSession
                 ["mqtt:host"] = broker.Host,
                 ["mqtt:port"] = broker.Port.ToString(CultureInfo.InvariantCulture),
                 ["store:path"] = store,
+                ["access:credentialsFile"] = Path.Combine(request.DataDir, "credentials"),
             },
             ConfigureServices = s => s.AddSingleton<TimeProvider>(clock),
             ConsoleLevel = Microsoft.Extensions.Logging.LogLevel.Warning,
@@ -85,7 +86,9 @@ internal static class DemoSession
             string speed = request.Speed.ToString(CultureInfo.InvariantCulture);
             await output.WriteLineAsync($"SoftSensor demo: scenario {scenario.Name} ({Path.GetFileName(scenarioPath)}, invented data), {speed}x, {runFor} of simulated time");
             await output.WriteLineAsync($"definition: {config}");
-            await output.WriteLineAsync($"status page: {DaemonHost.StatusAddress(app)}");
+            // One command stays enough: a one-time operator login link (the token opens one session, then is void).
+            string login = app.Services.GetRequiredService<Access.CredentialStore>().AddOneTimeToken(Access.Role.Operator);
+            await output.WriteLineAsync($"status page: {DaemonHost.StatusAddress(app)}/login?token={login} (one-time operator login; reading needs none)");
             await output.WriteLineAsync($"broker: {broker.Address} (e.g. mosquitto_sub -h {broker.Host} -p {broker.Port} -t 'softsensor/#' -v)");
             await output.WriteLineAsync($"store: {store}");
             await output.WriteLineAsync("Advisory only: not a safety instrumented system. Ctrl+C stops.");

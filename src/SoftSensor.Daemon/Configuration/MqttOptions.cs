@@ -18,8 +18,20 @@ internal sealed class MqttOptions
     /// <summary>User name; empty for anonymous.</summary>
     public string Username { get; set; } = "";
 
-    /// <summary>Password: set it from the environment (<c>SOFTSENSOR_mqtt__password</c>), never in a file.</summary>
+    /// <summary>Password: set it from the environment (<c>SOFTSENSOR_mqtt__password</c>) or <see cref="PasswordFile"/>; a JSON file that sets it is refused.</summary>
     public string Password { get; set; } = "";
+
+    /// <summary>A file holding the password (its first line), e.g. a systemd credential; mode 0600.</summary>
+    public string PasswordFile { get; set; } = "";
+
+    /// <summary>PEM file of the CA (a plant's private CA) that signed the broker's certificate; empty for the system's trust store.</summary>
+    public string TlsCaFile { get; set; } = "";
+
+    /// <summary>PEM client certificate for brokers that authenticate clients by certificate.</summary>
+    public string TlsClientCertificateFile { get; set; } = "";
+
+    /// <summary>PEM private key of <see cref="TlsClientCertificateFile"/>.</summary>
+    public string TlsClientKeyFile { get; set; } = "";
 
     /// <summary>Client id; also the daemon's name in the status topic.</summary>
     public string ClientId { get; set; } = "softsensor";
@@ -35,4 +47,10 @@ internal sealed class MqttOptions
 
     /// <summary>Longest reconnect delay.</summary>
     public TimeSpan ReconnectMaxDelay { get; set; } = TimeSpan.FromSeconds(30);
+
+    /// <summary>Oldest source timestamp a tag payload may carry, before the daemon's clock (older: refused and counted).</summary>
+    public TimeSpan TimestampWindowPast { get; set; } = TimeSpan.FromDays(1);
+
+    /// <summary>Newest source timestamp a tag payload may carry, after the daemon's clock (clock skew allowance).</summary>
+    public TimeSpan TimestampWindowFuture { get; set; } = TimeSpan.FromMinutes(5);
 }

@@ -30,6 +30,9 @@ internal sealed class SoftSensorOptions
 
     /// <summary>The OPC UA server (section <c>opcUa</c>; the adapter binds it too), checked here against the tags that use it.</summary>
     public OpcUaOptions OpcUa { get; set; } = new();
+
+    /// <summary>Who may use the status server (section <c>access</c>, docs/security.md).</summary>
+    public AccessOptions Access { get; set; } = new();
 }
 
 /// <summary>Section <c>store</c>: the embedded SQLite store.</summary>

@@ -80,9 +80,9 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
 
         ValidateRetention(errors, options.Store);
 
-        if (!Uri.TryCreate(options.Status.Url, UriKind.Absolute, out var url) || url.Scheme != Uri.UriSchemeHttp)
+        if (!Uri.TryCreate(options.Status.Url, UriKind.Absolute, out var url) || (url.Scheme != Uri.UriSchemeHttp && url.Scheme != Uri.UriSchemeHttps))
         {
-            errors.Add($"status:url is '{options.Status.Url}' (expected an http:// URL such as http://127.0.0.1:8470)");
+            errors.Add($"status:url is '{options.Status.Url}' (expected an http:// or https:// URL such as http://127.0.0.1:8470)");
         }
 
         return errors.Count == 0 ? ValidateOptionsResult.Success : ValidateOptionsResult.Fail(errors);
@@ -304,6 +304,11 @@ internal sealed partial class SoftSensorOptionsValidator : IValidateOptions<Soft
             || m.TopicPrefix.IndexOfAny(['+', '#']) >= 0)
         {
             errors.Add($"{key}:topicPrefix is '{m.TopicPrefix}' (expected topic levels without a leading or trailing '/' or wildcards, e.g. softsensor)");
+        }
+
+        if (m.TimestampWindowPast <= TimeSpan.Zero || m.TimestampWindowFuture < TimeSpan.Zero)
+        {
+            errors.Add($"{key}:timestampWindowPast is {m.TimestampWindowPast} and {key}:timestampWindowFuture is {m.TimestampWindowFuture} (expected above 0 and 0 or more)");
         }
 
         if (m.PingInterval < TimeSpan.FromMilliseconds(100))

@@ -19,6 +19,7 @@ internal sealed class DaemonMetrics : IDisposable
         CycleSeconds = _meter.CreateHistogram<double>("softsensor_cycle_seconds", "s", "Time spent computing and dispatching one cycle");
         SamplesIn = _meter.CreateCounter<long>("softsensor_samples_in_total", null, "Samples accepted into the signal store");
         SamplesRejected = _meter.CreateCounter<long>("softsensor_samples_rejected_total", null, "Payloads or samples dropped (malformed, unknown tag, non-finite)");
+        PayloadsRejected = _meter.CreateCounter<long>("softsensor_payloads_rejected_total", null, "Tag and command payloads refused, by reactor and reason (boolean, not_a_number, trailing_data, duplicate_key, timestamp_outside_window, too_large, ...)");
         PublishFailures = _meter.CreateCounter<long>("softsensor_publish_failures_total", null, "Publishes or sink writes that failed");
         Cycles = _meter.CreateCounter<long>("softsensor_cycles_total", null, "Cycles run");
         Reconnects = _meter.CreateCounter<long>("softsensor_mqtt_reconnects_total", null, "MQTT connections established after the first");
@@ -34,6 +35,9 @@ internal sealed class DaemonMetrics : IDisposable
     public Counter<long> SamplesIn { get; }
 
     public Counter<long> SamplesRejected { get; }
+
+    /// <summary>Refused payloads (tags <c>reactor</c>, <c>reason</c>).</summary>
+    public Counter<long> PayloadsRejected { get; }
 
     public Counter<long> PublishFailures { get; }
 

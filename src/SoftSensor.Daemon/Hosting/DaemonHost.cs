@@ -6,6 +6,7 @@ using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using SoftSensor.Daemon.Access;
 using SoftSensor.Daemon.Alarming;
 using SoftSensor.Daemon.Status;
 
@@ -44,8 +45,11 @@ internal static class DaemonHost
         builder.Services.AddSingleton(new DefinitionFile(settings.ConfigFile is { } file ? Path.GetFullPath(file) : null));
         builder.Services.AddSingleton<DaemonStatusFile>().AddHostedService(sp => sp.GetRequiredService<DaemonStatusFile>());
         settings.ConfigureServices?.Invoke(builder.Services);
+        builder.Services.AddAccessControl(builder.Configuration);
         builder.WebHost.UseUrls(builder.Configuration["status:url"] ?? new Configuration.StatusOptions().Url);
+        builder.WebHost.ConfigureServerLimits(builder.Configuration);
         var app = builder.Build();
+        app.UseAccessControl();
         // The exporter listens from the start, so /metrics counts what happened before its first request.
         app.Services.GetRequiredService<PrometheusExporter>();
         app.MapStatusEndpoints();

@@ -200,7 +200,7 @@ internal sealed partial class MqttLink
             .WithWillQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce);
         if (_options.Username.Length > 0)
         {
-            b.WithCredentials(_options.Username, _options.Password);
+            b.WithCredentials(_options.Username, MqttSecrets.Password(_options));
         }
 
         if (_options.Tls)
@@ -217,6 +217,16 @@ internal sealed partial class MqttLink
                 if (untrusted)
                 {
                     t.WithCertificateValidationHandler(_ => true);
+                }
+                else if (_options.TlsCaFile.Length > 0)
+                {
+                    var ca = MqttSecrets.LoadCa(_options.TlsCaFile);
+                    t.WithCertificateValidationHandler(a => MqttSecrets.ValidateAgainst(ca, a.Certificate, a.SslPolicyErrors));
+                }
+
+                if (_options.TlsClientCertificateFile.Length > 0)
+                {
+                    t.WithClientCertificates([MqttSecrets.LoadClientCertificate(_options.TlsClientCertificateFile, _options.TlsClientKeyFile)]);
                 }
             });
         }

@@ -21,9 +21,18 @@ internal sealed class MqttSampleSource : ISampleSource
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
     private readonly KeyValuePair<string, object?> _reactorTag;
+    private readonly string _reactor;
+    private readonly TimeSpan _past;
+    private readonly TimeSpan _future;
+    private readonly RateLimitedLog _rejectLog;
 
-    public MqttSampleSource(string reactor, MqttLink link, IReadOnlyList<TagBinding> bindings, DaemonMetrics metrics, TimeProvider time, ILogger logger)
+    public MqttSampleSource(string reactor, MqttLink link, IReadOnlyList<TagBinding> bindings, DaemonMetrics metrics, TimeProvider time, ILogger logger,
+        TimeSpan? timestampPast = null, TimeSpan? timestampFuture = null)
     {
+        _reactor = reactor;
+        _past = timestampPast ?? TimeSpan.MaxValue;
+        _future = timestampFuture ?? TimeSpan.MaxValue;
+        _rejectLog = new RateLimitedLog(TimeProvider.System, TimeSpan.FromSeconds(10));
         _link = link;
         _bindings = bindings;
         _metrics = metrics;
@@ -57,10 +66,16 @@ internal sealed class MqttSampleSource : ISampleSource
     private ValueTask OnPayload(TagBinding b, string topic, ReadOnlySequence<byte> payload, ISampleIntake samples)
     {
         bool text = b.Role == SignalRole.BatchId;
-        if (!PayloadDecoder.TryDecode(payload, b.Payload, out var r, out string error, text))
+        if (!PayloadDecoder.TryDecode(payload, b.Payload, new TimestampWindow(_time.GetUtcNow(), _past, _future), out var r, out string error, out var reason, text))
         {
             _metrics.SamplesRejected.Add(1, _reactorTag);
-            MqttLog.Malformed(_logger, topic, error);
+            _metrics.PayloadsRejected.Add(1, _reactorTag, new("reason", PayloadRejections.Id(reason)));
+            // Rate-limited per topic: a misconfigured publisher at 10 Hz writes one line per 10 s with the count since.
+            if (_rejectLog.ShouldLog(topic, out long suppressed))
+            {
+                MqttLog.Malformed(_logger, topic, suppressed > 0 ? $"{error} ({suppressed} more refused since the last line)" : error);
+            }
+
             return ValueTask.CompletedTask;
         }
 
@@ -86,11 +101,13 @@ internal sealed class MqttSampleSource : ISampleSource
 }
 
 /// <summary>Makes an <see cref="MqttSampleSource"/> for every reactor with MQTT tags.</summary>
-internal sealed class MqttSampleSourceFactory(MqttLink link, DaemonMetrics metrics, TimeProvider time, ILogger<MqttSampleSource> logger) : ISampleSourceFactory
+internal sealed class MqttSampleSourceFactory(MqttLink link, DaemonMetrics metrics, TimeProvider time, ILogger<MqttSampleSource> logger,
+    Microsoft.Extensions.Options.IOptions<SoftSensorOptions> options) : ISampleSourceFactory
 {
     public ISampleSource? Create(ReactorOptions reactor, IReadOnlyList<TagBinding> bindings)
     {
         var mqtt = bindings.Where(b => b.Topic.Length > 0).ToList();
-        return mqtt.Count == 0 ? null : new MqttSampleSource(reactor.Id, link, mqtt, metrics, time, logger);
+        return mqtt.Count == 0 ? null : new MqttSampleSource(reactor.Id, link, mqtt, metrics, time, logger,
+            options.Value.Mqtt.TimestampWindowPast, options.Value.Mqtt.TimestampWindowFuture);
     }
 }

@@ -27,28 +27,45 @@ internal static class PayloadDecoder
 {
     private const int MaxPayloadBytes = 64 * 1024;
 
-    /// <summary>Decodes; on failure <paramref name="error"/> names the reason.</summary>
-    public static bool TryDecode(ReadOnlySequence<byte> payload, PayloadOptions layout, out RawReading reading, out string error, bool text = false)
+    /// <summary>Decodes; on failure <paramref name="error"/> names the reason (no timestamp window).</summary>
+    public static bool TryDecode(ReadOnlySequence<byte> payload, PayloadOptions layout, out RawReading reading, out string error, bool text = false) =>
+        TryDecode(payload, layout, TimestampWindow.Open, out reading, out error, out _, text);
+
+    /// <summary>
+    /// Decodes; on failure <paramref name="error"/> names the reason for the log and <paramref name="reason"/>
+    /// classifies it for the metric. A numeric tag refuses a boolean, a string that is not a number,
+    /// data after the JSON value, a duplicate key anywhere in the object, and a source timestamp outside
+    /// <paramref name="window"/>. Never throws on any payload.
+    /// </summary>
+    public static bool TryDecode(ReadOnlySequence<byte> payload, PayloadOptions layout, TimestampWindow window, out RawReading reading, out string error, out PayloadRejection reason, bool text = false)
     {
         reading = default;
+        reason = PayloadRejection.None;
         if (payload.Length == 0)
         {
-            error = "empty payload";
-            return false;
+            return Fail(PayloadRejection.Empty, "empty payload", out error, out reason);
         }
 
         if (payload.Length > MaxPayloadBytes)
         {
-            error = $"payload of {payload.Length} bytes (expected at most {MaxPayloadBytes})";
-            return false;
+            return Fail(PayloadRejection.TooLarge, $"payload of {payload.Length} bytes (expected at most {MaxPayloadBytes})", out error, out reason);
         }
 
         if (text && layout.Format == PayloadFormat.Number)
         {
-            return TryText(Encoding.UTF8.GetString(payload).Trim(), "payload", out reading, out error);
+            bool ok = TryText(Encoding.UTF8.GetString(payload).Trim(), "payload", out reading, out error);
+            reason = ok ? PayloadRejection.None : PayloadRejection.BadText;
+            return ok;
         }
 
-        return layout.Format == PayloadFormat.Number ? TryNumber(payload, out reading, out error) : TryJson(payload, layout, text, out reading, out error);
+        return layout.Format == PayloadFormat.Number ? TryNumber(payload, out reading, out error, out reason) : TryJson(payload, layout, text, window, out reading, out error, out reason);
+    }
+
+    private static bool Fail(PayloadRejection why, string message, out string error, out PayloadRejection reason)
+    {
+        error = message;
+        reason = why;
+        return false;
     }
 
     private const int MaxTextLength = 64;
@@ -67,14 +84,19 @@ internal static class PayloadDecoder
         return true;
     }
 
-    private static bool TryNumber(ReadOnlySequence<byte> payload, out RawReading reading, out string error)
+    private static bool TryNumber(ReadOnlySequence<byte> payload, out RawReading reading, out string error, out PayloadRejection reason)
     {
         reading = default;
+        reason = PayloadRejection.None;
         string text = Encoding.UTF8.GetString(payload).Trim();
-        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
+        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v))
         {
-            error = $"'{Clip(text)}' is not a finite number";
-            return false;
+            return Fail(PayloadRejection.NotANumber, $"'{Clip(text)}' is not a number", out error, out reason);
+        }
+
+        if (!double.IsFinite(v))
+        {
+            return Fail(PayloadRejection.NotFinite, $"'{Clip(text)}' is not a finite number", out error, out reason);
         }
 
         reading = new RawReading(v, null, SampleQuality.Good, StatusCodes.Good);
@@ -82,27 +104,36 @@ internal static class PayloadDecoder
         return true;
     }
 
-    private static bool TryJson(ReadOnlySequence<byte> payload, PayloadOptions layout, bool text, out RawReading reading, out string error)
+    private static bool TryJson(ReadOnlySequence<byte> payload, PayloadOptions layout, bool text, TimestampWindow window, out RawReading reading, out string error, out PayloadRejection reason)
     {
         reading = default;
+        reason = PayloadRejection.None;
         JsonDocument doc;
+        var reader = new Utf8JsonReader(payload, new JsonReaderOptions { MaxDepth = 16 });
         try
         {
-            var reader = new Utf8JsonReader(payload, new JsonReaderOptions { MaxDepth = 16 });
             doc = JsonDocument.ParseValue(ref reader);
         }
         catch (JsonException e)
         {
-            error = "not JSON: " + e.Message;
-            return false;
+            return Fail(PayloadRejection.NotJson, "not JSON: " + e.Message, out error, out reason);
         }
 
         using (doc)
         {
+            if (HasTrailingData(ref reader))
+            {
+                return Fail(PayloadRejection.TrailingData, $"data after the JSON value at byte {reader.BytesConsumed} (expected one JSON value)", out error, out reason);
+            }
+
+            if (FindDuplicate(doc.RootElement) is { } dup)
+            {
+                return Fail(PayloadRejection.DuplicateKey, $"key '{Clip(dup)}' appears twice in one object (expected each key once)", out error, out reason);
+            }
+
             if (!TryPath(doc.RootElement, layout.ValuePath, out var ve))
             {
-                error = $"no value at '{layout.ValuePath}'";
-                return false;
+                return Fail(PayloadRejection.NoValue, $"no value at '{layout.ValuePath}'", out error, out reason);
             }
 
             double value = double.NaN;
@@ -117,21 +148,20 @@ internal static class PayloadDecoder
                 };
                 if (raw is null)
                 {
-                    error = $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a string or a number)";
-                    return false;
+                    return Fail(PayloadRejection.BadText, $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a string or a number)", out error, out reason);
                 }
 
                 if (!TryText(raw, $"value at '{layout.ValuePath}'", out _, out error))
                 {
+                    reason = PayloadRejection.BadText;
                     return false;
                 }
 
                 asText = raw;
             }
-            else if (!TryValue(ve, out value))
+            else if (TryValue(ve, out value) is var why && why != PayloadRejection.None)
             {
-                error = $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a finite number)";
-                return false;
+                return Fail(why, $"value at '{layout.ValuePath}' is {Clip(ve.GetRawText())} (expected a finite number{(why == PayloadRejection.Boolean ? ", not a boolean" : "")})", out error, out reason);
             }
 
             DateTimeOffset? time = null;
@@ -139,8 +169,13 @@ internal static class PayloadDecoder
             {
                 if (!TryTime(te, out var t))
                 {
-                    error = $"timestamp at '{layout.TimestampPath}' is {Clip(te.GetRawText())} (expected ISO 8601 text or Unix milliseconds)";
-                    return false;
+                    return Fail(PayloadRejection.BadTimestamp, $"timestamp at '{layout.TimestampPath}' is {Clip(te.GetRawText())} (expected ISO 8601 text or Unix milliseconds)", out error, out reason);
+                }
+
+                if (!window.Contains(t))
+                {
+                    return Fail(PayloadRejection.TimestampOutsideWindow,
+                        $"timestamp at '{layout.TimestampPath}' is {t.UtcDateTime:O} (expected within {window.Past} before and {window.Future} after the daemon's clock, {window.Now.UtcDateTime:O})", out error, out reason);
                 }
 
                 time = t;
@@ -151,10 +186,9 @@ internal static class PayloadDecoder
             bool hasCode = false;
             if (layout.StatusCodePath.Length > 0 && TryPath(doc.RootElement, layout.StatusCodePath, out var ce) && ce.ValueKind != JsonValueKind.Null)
             {
-                if (!ce.TryGetUInt32(out code))
+                if (ce.ValueKind != JsonValueKind.Number || !ce.TryGetUInt32(out code))
                 {
-                    error = $"status code at '{layout.StatusCodePath}' is {Clip(ce.GetRawText())} (expected an unsigned 32-bit integer)";
-                    return false;
+                    return Fail(PayloadRejection.BadStatusCode, $"status code at '{layout.StatusCodePath}' is {Clip(ce.GetRawText())} (expected an unsigned 32-bit integer)", out error, out reason);
                 }
 
                 hasCode = true;
@@ -165,8 +199,7 @@ internal static class PayloadDecoder
             {
                 if (!TryQuality(qe, out var q))
                 {
-                    error = $"quality at '{layout.QualityPath}' is {Clip(qe.GetRawText())} (expected good, uncertain, bad or a boolean)";
-                    return false;
+                    return Fail(PayloadRejection.BadQuality, $"quality at '{layout.QualityPath}' is {Clip(qe.GetRawText())} (expected good, uncertain, bad or a boolean)", out error, out reason);
                 }
 
                 quality = SampleQualities.Worst(quality, q);
@@ -180,6 +213,59 @@ internal static class PayloadDecoder
             reading = new RawReading(value, time, quality, code) { Text = asText };
             error = "";
             return true;
+        }
+    }
+
+    /// <summary>Whether anything but white space follows the value the reader stopped after (RFC 8259 §2: a JSON text is one value).</summary>
+    private static bool HasTrailingData(ref Utf8JsonReader reader)
+    {
+        try
+        {
+            return reader.Read();
+        }
+        catch (JsonException)
+        {
+            return true;
+        }
+    }
+
+    /// <summary>
+    /// A key that appears twice in one object, anywhere in the document (RFC 8259 §4: names SHOULD be
+    /// unique; which one a reader takes is unspecified, so a payload with two "value"s is refused).
+    /// </summary>
+    private static string? FindDuplicate(JsonElement e)
+    {
+        switch (e.ValueKind)
+        {
+            case JsonValueKind.Object:
+                HashSet<string>? seen = null;
+                foreach (var p in e.EnumerateObject())
+                {
+                    seen ??= new HashSet<string>(StringComparer.Ordinal);
+                    if (!seen.Add(p.Name))
+                    {
+                        return p.Name;
+                    }
+
+                    if (FindDuplicate(p.Value) is { } inner)
+                    {
+                        return inner;
+                    }
+                }
+
+                return null;
+            case JsonValueKind.Array:
+                foreach (var item in e.EnumerateArray())
+                {
+                    if (FindDuplicate(item) is { } inner)
+                    {
+                        return inner;
+                    }
+                }
+
+                return null;
+            default:
+                return null;
         }
     }
 
@@ -200,23 +286,21 @@ internal static class PayloadDecoder
         return true;
     }
 
-    private static bool TryValue(JsonElement e, out double value)
+    private static PayloadRejection TryValue(JsonElement e, out double value)
     {
         value = double.NaN;
         switch (e.ValueKind)
         {
             case JsonValueKind.Number:
-                return e.TryGetDouble(out value) && double.IsFinite(value);
+                return !e.TryGetDouble(out value) ? PayloadRejection.NotANumber : double.IsFinite(value) ? PayloadRejection.None : PayloadRejection.NotFinite;
             case JsonValueKind.True:
-                value = 1;
-                return true;
             case JsonValueKind.False:
-                value = 0;
-                return true;
+                return PayloadRejection.Boolean;
             case JsonValueKind.String:
-                return double.TryParse(e.GetString(), NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
+                return !double.TryParse(e.GetString(), NumberStyles.Float, CultureInfo.InvariantCulture, out value) ? PayloadRejection.NotANumber
+                    : double.IsFinite(value) ? PayloadRejection.None : PayloadRejection.NotFinite;
             default:
-                return false;
+                return PayloadRejection.NotANumber;
         }
     }
 

@@ -46,6 +46,11 @@ internal sealed class SampleCommandListener(MqttLink link, SampleBook book, Samp
 
     private async ValueTask HandleAsync(string reactor, ReadOnlySequence<byte> payload)
     {
+        if (!CommandPayloadLimit.Allows(logger, CommandTopic(options.Value, reactor), payload.Length))
+        {
+            return;
+        }
+
         var (record, problems) = intake.Enter(reactor, payload.ToArray(), "mqtt");
         if (record is null)
         {
@@ -77,7 +82,8 @@ internal sealed record SampleReply(bool Accepted, SampleRecord? Sample, IReadOnl
 internal sealed class SampleIntake(SampleBook book, BatchBook batches, IOptions<SoftSensorOptions> options, TimeProvider time, ILogger<SampleIntake> logger)
 {
     /// <summary>The stored input, or every problem (reactor unknown, payload invalid, sampled before the open batch started).</summary>
-    public (SampleRecord? Record, IReadOnlyList<string> Problems) Enter(string reactor, ReadOnlySpan<byte> payload, string path)
+    /// <remarks><paramref name="user"/>, the authenticated user of the status server, replaces any operator named in the payload.</remarks>
+    public (SampleRecord? Record, IReadOnlyList<string> Problems) Enter(string reactor, ReadOnlySpan<byte> payload, string path, string? user = null)
     {
         var reactorOptions = options.Value.Reactors.FirstOrDefault(r => r.Id == reactor);
         if (reactorOptions is null)
@@ -97,7 +103,7 @@ internal sealed class SampleIntake(SampleBook book, BatchBook batches, IOptions<
             return Refuse(reactor, path, problems);
         }
 
-        var record = book.Enter(reactor, open?.BatchId ?? reactorOptions.BatchId, entry!);
+        var record = book.Enter(reactor, open?.BatchId ?? reactorOptions.BatchId, user is null ? entry! : entry! with { Operator = user });
         SampleLog.Entered(logger, reactor, record.Id, record.Kind, record.SampledAt, record.Outcome);
         return (record, []);
     }

@@ -25,7 +25,7 @@ internal static class SampleEndpoints
         {
             using var body = new MemoryStream();
             await request.Body.CopyToAsync(body, request.HttpContext.RequestAborted);
-            var (record, problems) = intake.Enter(reactor, body.ToArray(), "http");
+            var (record, problems) = intake.Enter(reactor, body.ToArray(), "http", Access.AccessMiddleware.UserName(request.HttpContext));
             return record is null ? Results.Json(new SampleReply(false, null, problems), SampleCommandListener.Json, statusCode: 400)
                 : Results.Json(new SampleReply(true, record, []), SampleCommandListener.Json);
         });

@@ -23,14 +23,14 @@ internal static class SampleForm
         ("sampledAt", "Sampled at (UTC, e.g. 2026-03-01T10:00:00Z)"), ("valueGPerL", "Value, g/L (dcw, substrate, product)"),
         ("sigmaGPerL", "Its standard uncertainty, g/L"), ("od", "OD"), ("odSigma", "OD standard uncertainty"),
         ("factorGPerLPerOd", "Calibration, g/L per OD"), ("factorSigmaGPerLPerOd", "Calibration standard uncertainty"),
-        ("withdrawnMl", "Withdrawn, mL"), ("analyte", "Analyte"), ("operator", "Operator"),
+        ("withdrawnMl", "Withdrawn, mL"), ("analyte", "Analyte"),
     ];
 
     private static readonly string[] Numbers = ["valueGPerL", "sigmaGPerL", "od", "odSigma", "factorGPerLPerOd", "factorSigmaGPerLPerOd", "withdrawnMl"];
 
     public static void MapSampleForm(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/samples", (SampleBook book, IOptions<SoftSensorOptions> o) => Page(book, o.Value, ""));
+        app.MapGet("/samples", (HttpContext context, SampleBook book, IOptions<SoftSensorOptions> o) => Page(context, book, o.Value, ""));
         app.MapPost("/samples/{reactor}", async (string reactor, HttpRequest request, SampleBook book, SampleIntake intake, IOptions<SoftSensorOptions> o) =>
         {
             var form = await request.ReadFormAsync(request.HttpContext.RequestAborted);
@@ -61,15 +61,16 @@ internal static class SampleForm
             if (problems.Count > 0)
             {
                 book.CountRejected(reactor);
-                return Page(book, o.Value, "Refused: " + string.Join("; ", problems));
+                return Page(request.HttpContext, book, o.Value, "Refused: " + string.Join("; ", problems));
             }
 
-            var (record, refused) = intake.Enter(reactor, JsonSerializer.SerializeToUtf8Bytes(payload), "form");
-            return Page(book, o.Value, record is null ? "Refused: " + string.Join("; ", refused) : $"Stored input {record.Id} on {reactor}: {record.Outcome}.");
+            // The journal names the logged-in user, never a name typed into the form.
+            var (record, refused) = intake.Enter(reactor, JsonSerializer.SerializeToUtf8Bytes(payload), "form", Access.AccessMiddleware.UserName(request.HttpContext));
+            return Page(request.HttpContext, book, o.Value, record is null ? "Refused: " + string.Join("; ", refused) : $"Stored input {record.Id} on {reactor}: {record.Outcome}.");
         });
     }
 
-    private static IResult Page(SampleBook book, SoftSensorOptions o, string message)
+    private static IResult Page(HttpContext context, SampleBook book, SoftSensorOptions o, string message)
     {
         var ci = CultureInfo.InvariantCulture;
         var h = new StringBuilder(Report.PageChrome.Top("Lab samples", "samples"));
@@ -82,7 +83,7 @@ internal static class SampleForm
         foreach (var r in o.Reactors)
         {
             string id = WebUtility.HtmlEncode(r.Id);
-            h.Append("<section class=\"card\"><h2>Reactor ").Append(id).Append("</h2><form class=\"entry\" method=\"post\" action=\"/samples/").Append(id).Append("\">");
+            h.Append("<section class=\"card\"><h2>Reactor ").Append(id).Append("</h2><form class=\"entry\" method=\"post\" action=\"/samples/").Append(id).Append("\">").Append(Access.AccessMiddleware.FormField(context));
             h.Append("<label>Kind <select name=\"kind\"><option>dcw</option><option>od</option><option>substrate</option><option>product</option><option>removal</option></select></label><br>");
             foreach (var (name, label) in Fields)
             {

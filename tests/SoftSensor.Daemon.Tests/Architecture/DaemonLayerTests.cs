@@ -18,6 +18,7 @@ public partial class DaemonLayerTests
         ["Store"],                          // the embedded store (checkpoints, frames, outbox)
         ["Mqtt", "OpcUa", "Timeseries", "Replay"], // adapters: sources and sinks of the outside world
         ["Report"],                         // batch and replay reports
+        ["Access"],                         // who may use the status server: credentials, sessions, request checks
         ["Batches"],
         ["Samples"],
         ["Pipeline"],                       // alignment, cycle host, dispatch

@@ -102,7 +102,7 @@ public sealed class BatchCommandTests(MosquittoFixture broker) : IClassFixture<M
     {
         var config = TestConfigs.HandCase(broker.Port, "batchform");
         await using var daemon = await TestDaemon.StartAsync(config);
-        using var http = new HttpClient { BaseAddress = new Uri(daemon.StatusAddress) };
+        using var http = TestAccess.OperatorClient(daemon.StatusAddress);
         Assert.Contains("Start batch", await http.GetStringAsync(new Uri("/batches", UriKind.Relative)), StringComparison.Ordinal);
 
         using var bad = new FormUrlEncodedContent(new Dictionary<string, string> { ["batchId"] = "f-1", ["initialVolumeL"] = "x" });

@@ -41,7 +41,7 @@ public class SoftSensorOptionsValidatorTests
             + "reactors:0:tags:qi202:topic is 'plant/#' (expected an exact MQTT topic without wildcards); "
             + "reactors:0:tags has no gas-line flow (expected a tag with role AirFlowNlPerMin, OxygenFlowNlPerMin, NitrogenFlowNlPerMin or CarbonDioxideFlowNlPerMin); "
             + "mqtt:port is 70000 (expected 1 to 65535); "
-            + "status:url is 'ftp://x' (expected an http:// URL such as http://127.0.0.1:8470)",
+            + "status:url is 'ftp://x' (expected an http:// or https:// URL such as http://127.0.0.1:8470)",
             result.FailureMessage);
     }
 

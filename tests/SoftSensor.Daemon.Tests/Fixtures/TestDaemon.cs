@@ -27,6 +27,11 @@ internal sealed class TestDaemon : IAsyncDisposable
         string dir = Directory.CreateTempSubdirectory("softsensor-daemon-").FullName;
         config.TryAdd("store:path", Path.Combine(dir, "store.db"));
         config.TryAdd("status:url", "http://127.0.0.1:0");
+        if (!config.ContainsKey("access:credentialsFile"))
+        {
+            config["access:credentialsFile"] = TestAccess.WriteCredentials(dir);
+        }
+
         var app = DaemonHost.Build(new DaemonHostSettings
         {
             Overrides = config,

@@ -77,7 +77,7 @@ public sealed class SampleEntryPathsTests(MosquittoFixture broker) : IClassFixtu
     public async Task SampleForm_post_stores_a_substrate_assay_and_the_page_lists_it_as_recorded()
     {
         await using var daemon = await TestDaemon.StartAsync(TestConfigs.HandCase(broker.Port, "sampleform"));
-        using var http = new HttpClient { BaseAddress = new Uri(daemon.StatusAddress) };
+        using var http = TestAccess.OperatorClient(daemon.StatusAddress);
         Assert.Contains("Offline samples and removals", await http.GetStringAsync(new Uri("/samples", UriKind.Relative)), StringComparison.Ordinal);
 
         using var bad = new FormUrlEncodedContent(new Dictionary<string, string> { ["kind"] = "substrate", ["sampledAt"] = "2026-03-01T10:00:00Z", ["valueGPerL"] = "2,1" });
