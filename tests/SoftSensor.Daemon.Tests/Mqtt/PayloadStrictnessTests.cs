@@ -98,7 +98,7 @@ public sealed class PayloadStrictnessTests
     {
         var counts = new System.Collections.Concurrent.ConcurrentDictionary<PayloadRejection, long>();
         long cases = 0, accepted = 0;
-        var layouts = new[] { new PayloadOptions(), new PayloadOptions { Format = "number" } };
+        var layouts = new[] { new PayloadOptions(), new PayloadOptions { Format = PayloadFormat.Number } };
         Payloads.Sample(bytes =>
         {
             Interlocked.Increment(ref cases);
