@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Chemistry;
 
-/// <summary>The elements a compound formula may contain (METHODS.md 2.1).</summary>
+/// <summary>The elements a compound formula may contain (docs/methods.md §2.1).</summary>
 public enum Element
 {
     C = 0,

@@ -3,7 +3,7 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Aligns the off-gas readings with the process (METHODS.md 1.4): the analyser sees the gas a
+/// Aligns the off-gas readings with the process (docs/methods.md §1.4): the analyser sees the gas a
 /// dead time θ late (sample line, dryer), so the reading taken at τ belongs to the process at
 /// τ - θ. Each pushed snapshot at τ yields the aligned inputs of time τ - θ: every slot from the
 /// newest snapshot at or before τ - θ, the outlet O2/CO2 and the calibration flag from τ. Keeps

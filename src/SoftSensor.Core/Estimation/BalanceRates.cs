@@ -25,7 +25,7 @@ public struct BalanceRates
     /// <summary>CO2 transfer rate to the gas, mmol/(L·h): equal to CER unless <see cref="CerCorrection"/> says otherwise.</summary>
     public double CtrMmolPerLh { get; set; }
 
-    /// <summary>Which CER this cycle reports (METHODS.md 1.5: the output says which one was used).</summary>
+    /// <summary>Which CER this cycle reports (docs/methods.md §1.5: the output says which one was used).</summary>
     public CerCorrection CerCorrection { get; set; }
 
     /// <summary>Respiratory quotient (CER/OUR) and its standard uncertainty.</summary>

@@ -3,7 +3,7 @@ using SoftSensor.Core.Stoichiometry;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// One factored elemental balance of the cycle for one measured set (METHODS.md 2.4): the solver,
+/// One factored elemental balance of the cycle for one measured set (docs/methods.md §2.4): the solver,
 /// preallocated vectors, the positions of the compounds the cycle reads, and the diagnosis texts.
 /// Solve and Diagnose allocate nothing.
 /// </summary>

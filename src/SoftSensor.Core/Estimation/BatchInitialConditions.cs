@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Estimation;
 
 /// <summary>
 /// What the operator (or the plant) states at inoculation: the liquid volume, the inoculum biomass
-/// with its standard uncertainty (the observers' initial covariance P0 = sigma², METHODS.md
+/// with its standard uncertainty (the observers' initial covariance P0 = sigma², docs/methods.md
 /// section 4) and the residual substrate. A state made from them (<see cref="Cycle.NewState(in BatchInitialConditions)"/>)
 /// starts its integrals from these values at its first cycle instead of the configured defaults.
 /// </summary>

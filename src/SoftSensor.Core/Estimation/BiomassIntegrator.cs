@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Estimation;
 
 /// <summary>
 /// Biomass by integrating the reconciled growth rate with volume tracking and removals
-/// (METHODS.md section 4): d(X·V)/dt = r_X·V - (biomass removed by samples and harvest), with the
+/// (docs/methods.md §4): d(X·V)/dt = r_X·V - (biomass removed by samples and harvest), with the
 /// variance propagated for the Kalman update of offline samples.
 /// </summary>
 public static class BiomassIntegrator

@@ -4,11 +4,11 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// The dissolved-CO2 correction of the cycle (METHODS.md 1.5): CER = CTR + (1/V_L) d(V_L C_TIC)/dt,
+/// The dissolved-CO2 correction of the cycle (docs/methods.md §1.5): CER = CTR + (1/V_L) d(V_L C_TIC)/dt,
 /// C_TIC = H_CO2(T) p_CO2 (1 + K1/[H+] + K1 K2/[H+]²) from the broth pH and temperature and the CO2
 /// partial pressure over the broth, p_CO2 = y_CO2,dry (p - p_sat(T)) (Dalton's law, headspace
 /// saturated with water at the broth temperature; p_sat from IAPWS-IF97). pK1 from Harned &amp; Davis
-/// 1943 shifted by the medium (METHODS.md 1.5: media read 0.1-0.25 lower), pK2 from Harned &amp;
+/// 1943 shifted by the medium (docs/methods.md §1.5: media read 0.1-0.25 lower), pK2 from Harned &amp;
 /// Scholes 1941, H_CO2 from Sander's compilation (see <see cref="CarbonateEquilibrium"/>). C_TIC is
 /// smoothed with a first-order filter before the finite difference, since pH noise of 0.01 moves it
 /// by about 2 %; broth removed between two cycles takes its inorganic carbon with it and is not

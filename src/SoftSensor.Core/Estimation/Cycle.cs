@@ -6,7 +6,7 @@ using SoftSensor.Core.Stoichiometry;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// The one cycle shared by the daemon and the replay (ARCHITECTURE.md): aligned inputs plus the
+/// The one cycle shared by the daemon and the replay (DEVELOPERS.md): aligned inputs plus the
 /// estimator state give the estimates. Steps: volume and removals → gas balance (OUR, CER, RQ and
 /// their covariance; inputs already aligned for the analyser dead time, see
 /// <see cref="AnalyserAlignment"/>) → elemental balance reconciliation of OUR, CER and the
@@ -133,7 +133,7 @@ public sealed class Cycle
             inputs.Remove(SignalRole.LiquidVolumeL);
         }
 
-        // CER = CTR, or corrected for the inorganic carbon the broth accumulates (METHODS.md 1.5) when configured.
+        // CER = CTR, or corrected for the inorganic carbon the broth accumulates (docs/methods.md §1.5) when configured.
         double ctr = gas.CerMmolPerLh, cer = ctr, rq = gas.Rq, rqSigma = gas.RqSigma, cerSigma = gas.CerSigmaMmolPerLh, correctionSigma = 0;
         var correction = CerCorrection.None;
         if (_settings.CerCorrection != CerCorrection.None
@@ -205,7 +205,7 @@ public sealed class Cycle
         int m = q.Length;
         Array.Clear(psi);
 
-        // Signs: consumption < 0 (METHODS.md conventions): r_O2 = -OUR, r_CO2 = +CER.
+        // Signs: consumption < 0 (docs/methods.md conventions): r_O2 = -OUR, r_CO2 = +CER.
         double floor = _settings.MinimumGasRelativeSigma;
         double so = Math.Max(gas.OurSigmaMmolPerLh, floor * Math.Abs(gas.OurMmolPerLh));
         double sc = Math.Max(gas.CerSigmaMmolPerLh, floor * Math.Abs(cer));

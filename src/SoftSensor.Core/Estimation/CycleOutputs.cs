@@ -75,7 +75,7 @@ public sealed class CycleOutputs
     public uint BiomassStatusCode { get; set; }
 }
 
-/// <summary>Where the liquid volume came from (METHODS.md 1.7).</summary>
+/// <summary>Where the liquid volume came from (docs/methods.md §1.7).</summary>
 public enum VolumeSource
 {
     /// <summary>The controller's volume signal.</summary>

@@ -33,10 +33,10 @@ public sealed record CycleSettings
     /// <summary>Below this feed the substrate is not counted as measured, L/h.</summary>
     public double MinimumFeedLPerH { get; init; } = 1e-6;
 
-    /// <summary>Which CER the balance uses: the CO2 transfer rate, or corrected for the inorganic carbon the broth accumulates (METHODS.md 1.5; needs the Ph, TemperatureC and PressureKPa roles).</summary>
+    /// <summary>Which CER the balance uses: the CO2 transfer rate, or corrected for the inorganic carbon the broth accumulates (docs/methods.md §1.5; needs the Ph, TemperatureC and PressureKPa roles).</summary>
     public CerCorrection CerCorrection { get; init; } = CerCorrection.None;
 
-    /// <summary>Shift of pK1 for the medium's ionic strength (METHODS.md 1.5: about -0.1 to -0.25; 0 for pure water).</summary>
+    /// <summary>Shift of pK1 for the medium's ionic strength (docs/methods.md §1.5: about -0.1 to -0.25; 0 for pure water).</summary>
     public double Pk1MediumShift { get; init; }
 
     /// <summary>Standard deviation of the pH signal's noise, for the uncertainty the CER correction adds (0.01: a typical glass electrode's noise, common practice).</summary>
@@ -65,7 +65,7 @@ public sealed record CycleSettings
         EstimatorSettings.NonNegative(errors, nameof(PhSigma), PhSigma);
         if (!(Pk1MediumShift >= -1 && Pk1MediumShift <= 1))
         {
-            errors.Add($"{nameof(Pk1MediumShift)} is {Pk1MediumShift}; expected a pK1 shift between -1 and 1 (METHODS.md 1.5: about -0.1 to -0.25)");
+            errors.Add($"{nameof(Pk1MediumShift)} is {Pk1MediumShift}; expected a pK1 shift between -1 and 1 (docs/methods.md §1.5: about -0.1 to -0.25)");
         }
 
         if (!Enum.IsDefined(CerCorrection))

@@ -3,7 +3,7 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// From rates to states (METHODS.md section 4), the last part of the cycle: volume and removals,
+/// From rates to states (docs/methods.md §4), the last part of the cycle: volume and removals,
 /// both biomass observers, mu raw and smoothed, specific rates, substrate accumulation and the
 /// feed advisory. Mutates the state, overwrites the outputs, allocates nothing.
 /// </summary>

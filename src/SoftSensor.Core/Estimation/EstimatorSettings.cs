@@ -24,10 +24,10 @@ public sealed record EstimatorSettings
     /// <summary>Residual substrate at the start, g/L.</summary>
     public double InitialSubstrateGPerL { get; init; }
 
-    /// <summary>Molar mass of the organic part of biomass, g per C-mol (CH1.8O0.5N0.2: 24.6; METHODS.md 2.1).</summary>
+    /// <summary>Molar mass of the organic part of biomass, g per C-mol (CH1.8O0.5N0.2: 24.6; docs/methods.md §2.1).</summary>
     public double BiomassGPerCMol { get; init; } = 24.63;
 
-    /// <summary>Ash as a fraction of dry weight (typically 0.05-0.10, METHODS.md 2.1).</summary>
+    /// <summary>Ash as a fraction of dry weight (typically 0.05-0.10, docs/methods.md §2.1).</summary>
     public double AshFraction { get; init; } = 0.06;
 
     /// <summary>Time constant of the first-order filter that smooths mu, h.</summary>

@@ -1,9 +1,9 @@
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Feed advisory for a fed-batch (METHODS.md section 4). To hold mu at a setpoint,
+/// Feed advisory for a fed-batch (docs/methods.md §4). To hold mu at a setpoint,
 /// F = (mu_set / Y_XS + m_S)·X·V / c_S,feed (Pirt 1965 substrate balance). The oxygen the vessel
-/// can transfer, OTR_max = kLa·(C* - C_min) (METHODS.md 1.6), caps the growth rate through Pirt's
+/// can transfer, OTR_max = kLa·(C* - C_min) (docs/methods.md §1.6), caps the growth rate through Pirt's
 /// law for oxygen, mu_max = (OTR_max / X - m_O)·Y_XO, and so the feed; the critical specific
 /// uptake of overflow metabolism caps q_S = F·c_S / (X·V). Advisory only: an operator decides.
 /// </summary>

@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Feed advisory for a fed-batch (METHODS.md section 4): the feed that holds mu at a setpoint,
+/// Feed advisory for a fed-batch (docs/methods.md §4): the feed that holds mu at a setpoint,
 /// capped by the vessel's oxygen transfer capacity and by the onset of overflow metabolism.
 /// Strain- and medium-specific numbers are configuration.
 /// </summary>

@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// mu raw and smoothed (METHODS.md section 4: report both). Raw mu = r_X / X; the smoothed value is
+/// mu raw and smoothed (docs/methods.md §4: report both). Raw mu = r_X / X; the smoothed value is
 /// a first-order low-pass filter with a time constant, exact for irregular steps
 /// (alpha = 1 - exp(-dt / tau); common practice).
 /// </summary>

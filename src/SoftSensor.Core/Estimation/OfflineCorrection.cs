@@ -28,7 +28,7 @@ public readonly record struct TrajectoryPoint(long TimeTicks, double BiomassGPer
 public sealed record OfflineCorrection(OfflineSampleOutcome Outcome, TrajectoryPoint Prior, IReadOnlyList<TrajectoryPoint> Trajectory);
 
 /// <summary>
-/// Operator inputs applied on the kept cycle history (METHODS.md section 4): an offline biomass sample
+/// Operator inputs applied on the kept cycle history (docs/methods.md §4): an offline biomass sample
 /// (a Kalman update at its sampling time, <see cref="OfflineSampleUpdate"/>) and a withdrawal of broth at
 /// a past time (it changes the retained biomass of that cycle and, when the volume is integrated, every
 /// volume since). Both re-run the observers to the present; the caller keeps what was published.
@@ -47,7 +47,7 @@ public static class OfflineCorrections
 
     /// <summary>
     /// Takes <paramref name="volumeL"/> of broth out at the kept cycle at or before <paramref name="at"/>: that
-    /// cycle's removed fraction grows (d(X·V)/dt loses X·ΔV, METHODS.md section 4); with an integrated volume
+    /// cycle's removed fraction grows (d(X·V)/dt loses X·ΔV, docs/methods.md §4); with an integrated volume
     /// (<paramref name="volumeIntegrated"/>) every later volume drops by ΔV and the per-litre rates of those
     /// cycles are rescaled so that the grams they added stay the same. The observers are re-run from the
     /// cycle before. Needs one kept cycle before the removal (else <see cref="OfflineSampleOutcome.TooOld"/>).

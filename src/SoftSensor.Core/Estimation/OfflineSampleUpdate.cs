@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Applies an offline sample as a Kalman update at its sampling time (METHODS.md section 4: offline
+/// Applies an offline sample as a Kalman update at its sampling time (docs/methods.md §4: offline
 /// samples correct the estimate, never by overwriting history) and re-runs both observers over
 /// the cycles kept since, from the inputs those cycles stored. Allocation-free.
 /// </summary>

@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Residual substrate in the vessel (METHODS.md section 4): what was fed minus what the balance
+/// Residual substrate in the vessel (docs/methods.md §4): what was fed minus what the balance
 /// says was consumed, less what left with removed broth.
 /// </summary>
 public static class SubstrateAccumulation

@@ -3,7 +3,7 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Estimation;
 
 /// <summary>
-/// Liquid volume (METHODS.md 1.7): the controller's volume signal, else the load cell over the
+/// Liquid volume (docs/methods.md §1.7): the controller's volume signal, else the load cell over the
 /// broth density, else integrated from the last volume plus feed and base minus evaporation and
 /// removals. Removals come from the removed-volume totaliser and from announced harvests.
 /// </summary>

@@ -5,7 +5,7 @@ namespace SoftSensor.Core.Flux;
 /// <summary>
 /// Feeds the flux model's predicted exchange rates into the elemental-balance engine
 /// (<see cref="BalanceSolver"/>, the model's own balances, e.g. C, gamma, N) as if every rate were
-/// measured, and returns its χ² consistency test (METHODS.md 3: the flux-model results must close
+/// measured, and returns its χ² consistency test (docs/methods.md §3: the flux-model results must close
 /// the elemental balance). Each rate gets a standard deviation of 1 % of its size plus
 /// <see cref="SigmaFloorRateUnits"/>, so a balanced network gives h ≈ 0 and an unbalanced one fails.
 /// Set up once; <see cref="Check"/> allocates nothing. Not thread-safe (it owns its scratch vectors).

@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Flux;
 
 /// <summary>
 /// How many independent equations a network imposes on its exchange rates beyond the black-box
-/// elemental balance (METHODS.md 3): with the homogeneous constraints A_h = [S_int; fixed splits;
+/// elemental balance (docs/methods.md §3): with the homogeneous constraints A_h = [S_int; fixed splits;
 /// maintenance flux] and N a basis of their null space, the exchange rates that the network allows
 /// span T N. The constraints on them number n_exchange - rank(T N); the elemental balances account
 /// for rank(E) of these; the rest are extra. The maintenance flux counts as known (it is fixed by

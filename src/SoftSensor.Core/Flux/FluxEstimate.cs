@@ -14,7 +14,7 @@ public enum FluxEstimateStatus
 }
 
 /// <summary>
-/// One live estimate (METHODS.md 3, live use): the biomass formation rate that best explains the
+/// One live estimate (docs/methods.md §3, live use): the biomass formation rate that best explains the
 /// measured exchange rates in the weighted least-squares sense, with no yield specified.
 /// </summary>
 /// <param name="Status">Outcome.</param>

@@ -3,7 +3,7 @@ using SoftSensor.Core.Stoichiometry;
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
-/// Live use of a flux model in the cycle (METHODS.md 3): with the biomass formation rate r_X as
+/// Live use of a flux model in the cycle (docs/methods.md §3): with the biomass formation rate r_X as
 /// basis, every exchange rate is affine in r_X, q = a r_X + b m_ATP X (the maintenance term b from
 /// Pirt's law). Given measured rates y_i (e.g. O2 = -OUR, CO2 = CER, substrate = -feed) with
 /// standard deviations sigma_i, the weighted least-squares estimate is

@@ -5,7 +5,7 @@ namespace SoftSensor.Core.Flux;
 /// <summary>
 /// A metabolic network read from a model file: the exchange compounds (shared with the elemental
 /// balance), the balanced metabolites and cofactors, the reactions, their parameters, the carbon
-/// splits and the maintenance demand (METHODS.md section 3). The compounds and balances are the
+/// splits and the maintenance demand (docs/methods.md §3). The compounds and balances are the
 /// elemental-balance model of the same file (<see cref="ModelReader"/>). Immutable; compile it once with
 /// <see cref="FluxNetwork.Compile"/> and solve many times.
 /// </summary>

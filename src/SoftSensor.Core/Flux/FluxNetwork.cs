@@ -3,7 +3,7 @@ using SoftSensor.Core.Chemistry;
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
-/// A flux model compiled into matrices (METHODS.md 3): the balance of every intracellular
+/// A flux model compiled into matrices (docs/methods.md §3): the balance of every intracellular
 /// metabolite, S_int (metabolites x reactions), the fixed splits, the maintenance row, the exchange
 /// matrix T (compounds x reactions, in rate units: C-mol for organics, mol otherwise) and the element
 /// matrix E of the exchange compounds (elements x compounds, per rate unit). Built once per model.
@@ -107,7 +107,7 @@ public sealed class FluxNetwork
 
     /// <summary>
     /// Number of independent equations the network imposes on the exchange rates beyond the
-    /// black-box elemental balances of the same compounds (METHODS.md 3).
+    /// black-box elemental balances of the same compounds (docs/methods.md §3).
     /// </summary>
     public int ExtraEquations { get; }
 

@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Flux;
 
 /// <summary>
-/// Solves a network for a chosen basis (METHODS.md 3). The constraints are pseudo-steady state of
+/// Solves a network for a chosen basis (docs/methods.md §3). The constraints are pseudo-steady state of
 /// every balanced metabolite (S_int v = 0), the fixed splits, the maintenance flux
 /// (v_maint = m_ATP X) and one row per basis rate (a reaction flux, or an exchange rate T_j v).
 /// The constraint matrix is decomposed once here (SVD); each <see cref="Solve(ReadOnlySpan{double}, double, FluxSolution)"/>

@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Gas;
 
-/// <summary>On what basis the off-gas analyser reads (METHODS.md 1.3).</summary>
+/// <summary>On what basis the off-gas analyser reads (docs/methods.md §1.3).</summary>
 public enum AnalyserBasis
 {
     /// <summary>The sample is dried before the cell: readings are dry mole fractions.</summary>

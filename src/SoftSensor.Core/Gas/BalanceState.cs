@@ -10,7 +10,7 @@ internal readonly struct BalanceState
 {
     public BalanceState(in GasLineFlows flows, in InletComposition inlet, double outletO2Dry, double outletCo2Dry, double water, double molarVolumeLPerMol)
     {
-        // n_dot [mol/h] = F [L/min] * 60 / V_m (METHODS.md 1.1).
+        // n_dot [mol/h] = F [L/min] * 60 / V_m (docs/methods.md §1.1).
         double perNl = 60.0 / molarVolumeLPerMol;
         AirMolPerH = flows.AirNlPerMin * perNl;
         OxygenMolPerH = flows.OxygenNlPerMin * perNl;
@@ -39,7 +39,7 @@ internal readonly struct BalanceState
         WaterFraction = water;
         MolarVolumeLPerMol = molarVolumeLPerMol;
 
-        // Inert balance (METHODS.md 1.3).
+        // Inert balance (docs/methods.md §1.3).
         OutletMolPerH = InertInMolPerH / OutletInertFraction;
         OtrMolPerH = O2InMolPerH - (OutletMolPerH * outletO2Dry);
         CtrMolPerH = (OutletMolPerH * outletCo2Dry) - Co2InMolPerH;

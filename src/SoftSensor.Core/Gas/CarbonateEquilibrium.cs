@@ -1,8 +1,8 @@
 namespace SoftSensor.Core.Gas;
 
 /// <summary>
-/// Dissolved inorganic carbon in equilibrium with gaseous CO2 (METHODS.md 1.5), for pure water;
-/// culture media with their ionic strength read pK1 about 0.1-0.25 lower (METHODS.md 1.5).
+/// Dissolved inorganic carbon in equilibrium with gaseous CO2 (docs/methods.md §1.5), for pure water;
+/// culture media with their ionic strength read pK1 about 0.1-0.25 lower (docs/methods.md §1.5).
 /// </summary>
 public static class CarbonateEquilibrium
 {
@@ -37,7 +37,7 @@ public static class CarbonateEquilibrium
     /// <param name="ph">Broth pH.</param>
     /// <param name="temperatureC">Broth temperature, °C.</param>
     /// <param name="co2PartialPressureKPa">CO2 partial pressure over the broth, kPa (outlet CO2 fraction times head pressure).</param>
-    /// <param name="pk1Shift">Added to pK1 for the medium (METHODS.md 1.5: media read about 0.1-0.25 lower; 0 for pure water).</param>
+    /// <param name="pk1Shift">Added to pK1 for the medium (docs/methods.md §1.5: media read about 0.1-0.25 lower; 0 for pure water).</param>
     public static double TotalInorganicCarbonMmolPerL(double ph, double temperatureC, double co2PartialPressureKPa, double pk1Shift = 0)
     {
         double t = temperatureC + ReferenceConditions.ZeroCelsiusK;

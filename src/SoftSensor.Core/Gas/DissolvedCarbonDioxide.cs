@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Gas;
 
-/// <summary>Which CER the caller reports (the output says which one was used, METHODS.md 1.5).</summary>
+/// <summary>Which CER the caller reports (the output says which one was used, docs/methods.md §1.5).</summary>
 public enum CerCorrection
 {
     /// <summary>CER = CTR: the CO2 transfer rate to the gas (steady pH and CO2 partial pressure).</summary>
@@ -11,7 +11,7 @@ public enum CerCorrection
 }
 
 /// <summary>
-/// The dissolved-CO2 correction of CER (METHODS.md 1.5): CER = CTR + (1/V_L) d(V_L C_TIC)/dt, by a
+/// The dissolved-CO2 correction of CER (docs/methods.md §1.5): CER = CTR + (1/V_L) d(V_L C_TIC)/dt, by a
 /// finite difference between two cycles, with C_TIC from <see cref="CarbonateEquilibrium"/>.
 /// </summary>
 public static class DissolvedCarbonDioxide

@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Gas;
 
-/// <summary>Composition of dry air used when the inlet is mixed from gas lines (METHODS.md 1.2).</summary>
+/// <summary>Composition of dry air used when the inlet is mixed from gas lines (docs/methods.md §1.2).</summary>
 public static class DryAir
 {
     /// <summary>

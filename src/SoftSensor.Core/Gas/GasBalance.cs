@@ -3,7 +3,7 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Gas;
 
 /// <summary>
-/// The inert-gas balance over the vessel (METHODS.md 1.1-1.3): molar flows from the gas lines at
+/// The inert-gas balance over the vessel (docs/methods.md §1.1-1.3): molar flows from the gas lines at
 /// their MFC reference conditions, the inlet composition, the dry outlet composition, and
 ///   n_out = n_in (1 - yO2_in - yCO2_in) / (1 - yO2_out - yCO2_out)
 ///   OTR = (n_in yO2_in - n_out yO2_out) / V_L,   CTR = (n_out yCO2_out - n_in yCO2_in) / V_L,
@@ -57,7 +57,7 @@ public static class GasBalance
             waterKnown = false;
         }
 
-        // Dry basis: y_dry = y_read / (1 - y_H2O) (METHODS.md 1.3).
+        // Dry basis: y_dry = y_read / (1 - y_H2O) (docs/methods.md §1.3).
         double yo = outlet.O2Fraction / (1 - water);
         double yc = outlet.Co2Fraction / (1 - water);
         if (!IsFraction(outlet.O2Fraction) || !IsFraction(outlet.Co2Fraction) || (waterKnown && !(yo + yc < 1)))

@@ -2,7 +2,7 @@ using SoftSensor.Core.Signals;
 
 namespace SoftSensor.Core.Gas;
 
-/// <summary>Data-quality findings of one gas balance (METHODS.md 1.8). Results, never exceptions.</summary>
+/// <summary>Data-quality findings of one gas balance (docs/methods.md §1.8). Results, never exceptions.</summary>
 [Flags]
 public enum GasBalanceFlags
 {

@@ -4,7 +4,7 @@ namespace SoftSensor.Core.Gas;
 
 /// <summary>
 /// One gas balance. Rates in mmol/(L·h) referred to the liquid volume, reported positive
-/// (OUR = OTR = -r_O2, CER = CTR = r_CO2; METHODS.md conventions). <see cref="CerMmolPerLh"/> is the
+/// (OUR = OTR = -r_O2, CER = CTR = r_CO2; docs/methods.md conventions). <see cref="CerMmolPerLh"/> is the
 /// CO2 transfer rate: the dissolved-CO2 correction (<see cref="DissolvedCarbonDioxide"/>) is applied
 /// by the caller that can difference it over time. Values are NaN when they could not be computed.
 /// </summary>

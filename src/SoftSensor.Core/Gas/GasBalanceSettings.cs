@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Gas;
 
-/// <summary>Configuration of the gas balance (METHODS.md 1.1, 1.3, 1.8).</summary>
+/// <summary>Configuration of the gas balance (docs/methods.md §1.1, 1.3, 1.8).</summary>
 /// <param name="Reference">MFC reference conditions of the gas-line flows and of the reported outlet flow.</param>
 /// <param name="Accuracy">Standard uncertainties of the raw measurements.</param>
 /// <param name="MinAerationNlPerMin">Below this total inlet flow the balance is meaningless (flagged bad).</param>

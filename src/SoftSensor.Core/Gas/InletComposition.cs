@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Gas;
 
-/// <summary>Where the inlet composition comes from (METHODS.md 1.2).</summary>
+/// <summary>Where the inlet composition comes from (docs/methods.md §1.2).</summary>
 public enum InletSource
 {
     /// <summary>Flow-weighted mix of the gas lines: air (dry air, configured CO2), pure O2, N2, CO2.</summary>

@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Gas;
 
 /// <summary>
-/// Saturation concentration of dissolved O2 (METHODS.md 1.6) from Benson & Krause 1984 (Limnol.
+/// Saturation concentration of dissolved O2 (docs/methods.md §1.6) from Benson & Krause 1984 (Limnol.
 /// Oceanogr. 29(3) 620-632; the form used by USGS and Standard Methods 4500-O):
 ///   ln C* [mg/L] = -139.34411 + 1.575701e5/T - 6.642308e7/T² + 1.243800e10/T³ - 8.621949e11/T⁴
 /// for fresh water in equilibrium with water-saturated air at 1 atm; 9.09 (20 °C), 8.26 (25 °C),

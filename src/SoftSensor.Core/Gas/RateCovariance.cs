@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Gas;
 
 /// <summary>
 /// The 2x2 covariance of (OTR, CTR) in (mmol/(L·h))². Not diagonal: both rates share the
-/// inert-balance outlet flow and the inlet flows (METHODS.md 2.4), so the stoichiometric
+/// inert-balance outlet flow and the inlet flows (docs/methods.md §2.4), so the stoichiometric
 /// reconciliation needs the off-diagonal term.
 /// </summary>
 /// <param name="OurOur">Variance of OTR.</param>

@@ -3,7 +3,7 @@ namespace SoftSensor.Core.Gas;
 /// <summary>
 /// The reference conditions a mass flow controller states its volume flow at ("normal" or
 /// "standard" litres). They differ between vendors and regions (0 °C/101.325 kPa, 0 °C/100 kPa,
-/// 15 °C, 20 °C, 21.1 °C ...): always configuration, never a constant (METHODS.md 1.1).
+/// 15 °C, 20 °C, 21.1 °C ...): always configuration, never a constant (docs/methods.md §1.1).
 /// </summary>
 /// <param name="TemperatureK">Reference temperature, K.</param>
 /// <param name="PressureKPa">Reference pressure, absolute, kPa.</param>

@@ -4,7 +4,7 @@ namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
 /// One conserved quantity of a model: an element, or the degree of reduction ("gamma"), which combines
-/// the H and O balances so that water drops out (METHODS.md 2.2; Roels 1983).
+/// the H and O balances so that water drops out (docs/methods.md §2.2; Roels 1983).
 /// </summary>
 public readonly record struct Balance
 {

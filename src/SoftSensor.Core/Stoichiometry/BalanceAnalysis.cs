@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
 /// What a model and a choice of measurements and specifications allow, decided when the solver is
-/// built (METHODS.md 2.3-2.4): the rank of the element matrix, the degrees of freedom, which unknown
+/// built (docs/methods.md §2.3-2.4): the rank of the element matrix, the degrees of freedom, which unknown
 /// rates are calculable (Klamt, Schuster &amp; Gilles 2002; van der Heijden et al. 1994a), the
 /// redundancy, and what would make an under-determined set determined.
 /// </summary>

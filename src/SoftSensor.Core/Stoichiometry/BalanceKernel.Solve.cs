@@ -4,7 +4,7 @@ using System.Runtime.InteropServices;
 namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
-/// The per-cycle arithmetic of <see cref="BalanceKernel"/> (METHODS.md 2.4):
+/// The per-cycle arithmetic of <see cref="BalanceKernel"/> (docs/methods.md §2.4):
 ///   eps = R_r q,  T = Psi R_r^T,  Phi = R_r T = L L^T,  z = Phi^-1 eps,  h = eps^T z,
 ///   q* = q - T z,  Psi* = Psi - G^T G with G = L^-1 T^T,  q_u = K q*,  Cov(q_u) = K Psi* K^T.
 /// The sizes are fixed when the kernel is built and checked once per call, so the loops run on

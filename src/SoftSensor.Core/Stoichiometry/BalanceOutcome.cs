@@ -1,7 +1,7 @@
 namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
-/// The result of one solve: status and the χ² consistency test (METHODS.md 2.4). Without redundancy
+/// The result of one solve: status and the χ² consistency test (docs/methods.md §2.4). Without redundancy
 /// (<see cref="Dof"/> = 0) there is no test and <see cref="Consistent"/> is true by default.
 /// </summary>
 /// <param name="Status">How the solve ended.</param>

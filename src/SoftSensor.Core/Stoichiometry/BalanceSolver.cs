@@ -6,7 +6,7 @@ namespace SoftSensor.Core.Stoichiometry;
 /// Elemental balances of one model with one set of measured rates and specifications, factored once
 /// (the base system and every diagnosis hypothesis); <see cref="Solve(ReadOnlySpan{double}, ReadOnlySpan{double}, Span{double}, Span{double})"/>
 /// and <see cref="Diagnose"/> then allocate nothing. Not thread-safe: one solver per pipeline (it owns its scratch vectors).
-/// Method: Wang &amp; Stephanopoulos 1983 (Biotechnol. Bioeng. 25); van der Heijden et al. 1994 (Biotechnol. Bioeng. 43, 44); METHODS.md 2.
+/// Method: Wang &amp; Stephanopoulos 1983 (Biotechnol. Bioeng. 25); van der Heijden et al. 1994 (Biotechnol. Bioeng. 43, 44); docs/methods.md §2.
 /// </summary>
 public sealed class BalanceSolver
 {

@@ -4,7 +4,7 @@ namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
 /// One compound of a model. Its rate is counted per C-mol when it contains carbon (glucose as CH2O),
-/// otherwise per mol (METHODS.md, conventions).
+/// otherwise per mol (docs/methods.md, conventions).
 /// </summary>
 /// <param name="Id">Lower-case id used in model files, measurements and outputs.</param>
 /// <param name="Formula">The formula as written in the model file.</param>

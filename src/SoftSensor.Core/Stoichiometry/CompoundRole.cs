@@ -1,6 +1,6 @@
 namespace SoftSensor.Core.Stoichiometry;
 
-/// <summary>What a compound is in a black-box model (METHODS.md 2). Roles name meaning; the sign of a rate says direction.</summary>
+/// <summary>What a compound is in a black-box model (docs/methods.md §2). Roles name meaning; the sign of a rate says direction.</summary>
 public enum CompoundRole
 {
     /// <summary>A carbon and energy source that the cells take up.</summary>

@@ -17,7 +17,7 @@ public enum SpecificationKind
 
 /// <summary>
 /// A known relation between two rates, added to the balances as one more linear equation
-/// (METHODS.md 2.3), e.g. a biomass yield or the RQ. Exact: it carries no uncertainty.
+/// (docs/methods.md §2.3), e.g. a biomass yield or the RQ. Exact: it carries no uncertainty.
 /// </summary>
 /// <param name="Kind">Yield or ratio.</param>
 /// <param name="Numerator">Compound id on top.</param>

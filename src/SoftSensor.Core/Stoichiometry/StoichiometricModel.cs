@@ -2,7 +2,7 @@ namespace SoftSensor.Core.Stoichiometry;
 
 /// <summary>
 /// A black-box model: compounds with formulas and roles, and the balances that hold over them
-/// (METHODS.md 2.1-2.2). Immutable. Read one with <see cref="ModelReader"/>.
+/// (docs/methods.md §2.1-2.2). Immutable. Read one with <see cref="ModelReader"/>.
 /// </summary>
 public sealed class StoichiometricModel
 {
@@ -61,7 +61,7 @@ public sealed class StoichiometricModel
 
     /// <summary>
     /// The element matrix E (balances x <paramref name="compounds"/>), per C-mol for organic compounds
-    /// (METHODS.md 2.2: E q = 0).
+    /// (docs/methods.md §2.2: E q = 0).
     /// </summary>
     public double[,] ElementMatrix(IReadOnlyList<Compound> compounds)
     {

@@ -8,7 +8,7 @@ namespace SoftSensor.Daemon.Alarming;
 
 /// <summary>
 /// Takes operator commands from MQTT: one command topic per reactor,
-/// <c>{prefix}/{site}/{area}/{reactor}/command/alarm</c> (a subtree of its own, INTEGRATION.md), JSON
+/// <c>{prefix}/{site}/{area}/{reactor}/command/alarm</c> (a subtree of its own, docs/daemon.md), JSON
 /// as in <see cref="AlarmCommandPayload"/>. The outcome goes to <c>.../command/alarm/result</c>
 /// (not retained): applied with the transitions, or refused with the reason.
 /// </summary>

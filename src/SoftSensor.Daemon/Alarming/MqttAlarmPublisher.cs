@@ -4,7 +4,7 @@ using SoftSensor.Daemon.Mqtt;
 namespace SoftSensor.Daemon.Alarming;
 
 /// <summary>
-/// Publishes alarms on MQTT (INTEGRATION.md: retained for latest state, not for event streams;
+/// Publishes alarms on MQTT (docs/daemon.md: retained for latest state, not for event streams;
 /// QoS 1): the state of each alarm retained on <c>.../{reactor}/alarm/{id}</c>, each transition on
 /// <c>.../{reactor}/alarm/{id}/event</c>. While the broker is down nothing is queued here: the
 /// journal has every transition, and the next transition republishes the retained state.

@@ -8,7 +8,7 @@ namespace SoftSensor.Daemon.Cli;
 /// <summary>
 /// <c>softsensor balance</c>: elemental balances of a model file for one set of measured rates and
 /// specifications; reconciles redundant measurements, tests them (χ²), diagnoses a failed test and
-/// reports carbon and electron recovery (METHODS.md 2; docs/balance.md).
+/// reports carbon and electron recovery (docs/methods.md §2; docs/balance.md).
 /// </summary>
 internal sealed class BalanceVerb : IVerb
 {

@@ -5,7 +5,7 @@ namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
 /// <c>softsensor flux --model FILE --basis ID=VALUE [--basis ...] [--biomass-g-per-l X] [--json]</c>:
-/// solves a pathway flux model (METHODS.md 3) from basis rates and prints every flux, every
+/// solves a pathway flux model (docs/methods.md §3) from basis rates and prints every flux, every
 /// exchange rate, the extra equations over the black-box balance, the undetermined fluxes and the
 /// elemental closure.
 /// </summary>

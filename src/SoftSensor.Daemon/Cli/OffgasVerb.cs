@@ -6,7 +6,7 @@ namespace SoftSensor.Daemon.Cli;
 
 /// <summary>
 /// <c>softsensor offgas</c>: one inert-gas balance (OUR, CER, RQ, their uncertainty and quality)
-/// from flags (METHODS.md 1.1-1.3, 1.8). Bad input: one line on stderr, exit code 2. A balance
+/// from flags (docs/methods.md §1.1-1.3, 1.8). Bad input: one line on stderr, exit code 2. A balance
 /// that ran exits 0 whatever its quality; the quality and its reasons are in the output.
 /// </summary>
 internal sealed class OffgasVerb : IVerb

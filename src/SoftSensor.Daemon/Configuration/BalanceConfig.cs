@@ -18,7 +18,7 @@ internal sealed record BalanceConfig
     /// <summary>Significance level of the consistency test.</summary>
     public double Alpha { get; init; } = 0.05;
 
-    /// <summary><c>none</c>: CER = CTR; <c>dissolvedInorganicCarbon</c>: CER corrected for the inorganic carbon the broth accumulates (needs the Ph, TemperatureC and PressureKPa roles; METHODS.md 1.5).</summary>
+    /// <summary><c>none</c>: CER = CTR; <c>dissolvedInorganicCarbon</c>: CER corrected for the inorganic carbon the broth accumulates (needs the Ph, TemperatureC and PressureKPa roles; docs/methods.md §1.5).</summary>
     public string CerCorrection { get; init; } = "none";
 
     /// <summary>Shift of pK1 for the medium (about -0.1 to -0.25; 0 for pure water).</summary>

@@ -1,6 +1,6 @@
 namespace SoftSensor.Daemon.Configuration;
 
-/// <summary>Gas balance settings of one reactor (METHODS.md section 1).</summary>
+/// <summary>Gas balance settings of one reactor (docs/methods.md §1).</summary>
 internal sealed class GasOptions
 {
     /// <summary>Reference temperature of the mass flow controllers, K (vendor-specific: 273.15, 288.15, 293.15 ...).</summary>

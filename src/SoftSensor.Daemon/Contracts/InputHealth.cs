@@ -10,7 +10,7 @@ namespace SoftSensor.Daemon.Contracts;
 /// <param name="AgeSeconds">Cycle time − dead time − source time, seconds (NaN when none).</param>
 /// <param name="State">Why the quality is what it is.</param>
 /// <param name="Quality">Quality the cycle sees.</param>
-/// <param name="StatusCode">OPC UA status code the cycle sees (INTEGRATION.md "Estimate quality").</param>
+/// <param name="StatusCode">OPC UA status code the cycle sees (OPC UA Part 8 §7.3.2).</param>
 internal readonly record struct InputHealth(
     string Tag,
     SignalRole Role,

@@ -3,7 +3,7 @@ using Microsoft.Extensions.Configuration;
 namespace SoftSensor.Daemon.Hosting;
 
 /// <summary>
-/// The configuration layers of the daemon, lowest priority first (INTEGRATION.md "Host conventions"):
+/// The configuration layers of the daemon, lowest priority first (docs/daemon.md):
 /// <c>appsettings.json</c> beside the executable, the <c>--config</c> file, every
 /// <c>/etc/softsensor/*.json</c> in name order, in-memory overrides (the demo's broker port),
 /// environment variables <c>SOFTSENSOR_*</c> with <c>__</c> between sections, and the command line
@@ -59,7 +59,7 @@ internal static class DaemonConfiguration
             configuration.AddInMemoryCollection(settings.Overrides);
         }
 
-        configuration.AddEnvironmentVariables(EnvironmentPrefix);
+        configuration.AddInMemoryCollection(EnvironmentSettings());
         if (settings.CommandLine.Count > 0)
         {
             configuration.AddCommandLine([.. settings.CommandLine]);
@@ -93,4 +93,31 @@ internal sealed class DaemonHostSettings
 
     /// <summary>Minimum log level of the console (Information by default; the demo uses Warning).</summary>
     public Microsoft.Extensions.Logging.LogLevel ConsoleLevel { get; init; } = Microsoft.Extensions.Logging.LogLevel.Information;
+    /// <summary>
+    /// The environment's settings: <c>SOFTSENSOR_section__key</c> (and the top-level scalars <c>SOFTSENSOR_site</c>,
+    /// <c>SOFTSENSOR_area</c>). The program's own variables that are not settings (<c>SOFTSENSOR_TOKEN</c>,
+    /// <c>SOFTSENSOR_TOKEN_FILE</c>, <c>SOFTSENSOR_OPCUA_PASSWORD</c>, <c>SOFTSENSOR_INFLUX_TOKEN</c>: names
+    /// without a section) are left out, so the strict definition does not refuse them as unknown keys.
+    /// </summary>
+    internal static Dictionary<string, string?> EnvironmentSettings()
+    {
+        var settings = new Dictionary<string, string?>(StringComparer.OrdinalIgnoreCase);
+        foreach (System.Collections.DictionaryEntry e in Environment.GetEnvironmentVariables())
+        {
+            string name = (string)e.Key;
+            if (!name.StartsWith(EnvironmentPrefix, StringComparison.OrdinalIgnoreCase))
+            {
+                continue;
+            }
+
+            string key = name[EnvironmentPrefix.Length..];
+            bool topScalar = key.Equals("site", StringComparison.OrdinalIgnoreCase) || key.Equals("area", StringComparison.OrdinalIgnoreCase);
+            if (key.Contains("__", StringComparison.Ordinal) || topScalar)
+            {
+                settings[key.Replace("__", ":", StringComparison.Ordinal)] = (string?)e.Value;
+            }
+        }
+
+        return settings;
+    }
 }

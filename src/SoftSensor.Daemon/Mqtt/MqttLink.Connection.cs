@@ -111,7 +111,7 @@ internal sealed partial class MqttLink
             using var timeout = CancellationTokenSource.CreateLinkedTokenSource(stop);
             timeout.CancelAfter(TimeSpan.FromSeconds(10));
             var result = await _client.ConnectAsync(BuildOptions(), timeout.Token);
-            // MQTTnet 5 does not throw on a refused CONNACK: check the result code (INTEGRATION.md).
+            // MQTTnet 5 does not throw on a refused CONNACK: check the result code (docs/daemon.md).
             if (result.ResultCode != MqttClientConnectResultCode.Success)
             {
                 MqttLog.Refused(_logger, _broker, result.ResultCode.ToString(), result.ReasonString ?? "");

@@ -109,7 +109,7 @@ internal sealed partial class MqttLink : IHostedService, IAsyncDisposable
         try
         {
             var result = await _client.PublishAsync(message, cancellationToken);
-            // A QoS 1 publish nobody subscribed to reports NoMatchingSubscribers with success (INTEGRATION.md).
+            // A QoS 1 publish nobody subscribed to reports NoMatchingSubscribers with success (docs/daemon.md).
             if (result.IsSuccess)
             {
                 return true;

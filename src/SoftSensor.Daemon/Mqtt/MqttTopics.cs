@@ -3,7 +3,7 @@ using SoftSensor.Daemon.Configuration;
 namespace SoftSensor.Daemon.Mqtt;
 
 /// <summary>
-/// The daemon's output topics in the plant hierarchy (INTEGRATION.md "MQTT": lowercase, no leading
+/// The daemon's output topics in the plant hierarchy (docs/daemon.md: lowercase, no leading
 /// slash, separate subtrees for estimates, alarms and status):
 /// <c>{prefix}/{site}/{area}/{reactor}/estimate/{name}</c>, <c>{prefix}/{site}/{area}/{reactor}/batch</c>, <c>{prefix}/{site}/{area}/{reactor}/alarm/{id}</c>,
 /// <c>{prefix}/{site}/{area}/daemon/{clientId}/status</c>.

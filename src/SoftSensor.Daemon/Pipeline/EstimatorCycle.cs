@@ -8,7 +8,7 @@ namespace SoftSensor.Daemon.Pipeline;
 
 /// <summary>
 /// The full estimator's cycle: the same <see cref="Cycle"/> the replay runs (gas balance, elemental
-/// balance with its consistency test, growth rate, biomass, feed advisory; METHODS.md) on the
+/// balance with its consistency test, growth rate, biomass, feed advisory; docs/methods.md) on the
 /// aligned inputs, flattened by <see cref="EstimateFrames"/>. Its state (biomass, volume, history)
 /// is checkpointed with <see cref="EstimatorStateCodec"/> so a restart resumes. Operator inputs (offline
 /// samples, withdrawals) reach it through <see cref="Samples.IOfflineInputTarget"/> on the cycle task.

@@ -9,7 +9,7 @@ namespace SoftSensor.Daemon.Pipeline;
 /// <summary>
 /// What every reactor cycle shares: the gas balance settings of a reactor's gas section and tag
 /// map, the fixed inputs it fills in (volume, inlet), the roles it uses, and the OPC UA status
-/// code of a value from its quality and its inputs' health (INTEGRATION.md "Estimate quality as
+/// code of a value from its quality and its inputs' health (OPC UA Part 8 §7.3.2,
 /// OPC UA status codes").
 /// </summary>
 internal sealed class GasInputs
@@ -98,7 +98,7 @@ internal sealed class GasInputs
         return flags;
     }
 
-    /// <summary>The OPC UA status code of a value (INTEGRATION.md "Estimate quality as OPC UA status codes").</summary>
+    /// <summary>The OPC UA status code of a value (OPC UA Part 8 §7.3.2).</summary>
     public uint Code(GasBalanceFlags flags, SampleQuality quality, ReadOnlySpan<InputHealth> health)
     {
         if (quality == SampleQuality.Good)

@@ -6,7 +6,7 @@ using SoftSensor.Daemon.Contracts;
 namespace SoftSensor.Daemon.Pipeline;
 
 /// <summary>
-/// The off-gas-only cycle: the inert-gas balance of SoftSensor.Core.Gas (METHODS.md section 1) on
+/// The off-gas-only cycle: the inert-gas balance of SoftSensor.Core.Gas (docs/methods.md §1) on
 /// the aligned inputs, giving OUR, CER, RQ and the outlet flow with their uncertainty, quality and
 /// an OPC UA status code. Stateless. A reactor with a model file runs the <see cref="EstimatorCycle"/> instead.
 /// </summary>

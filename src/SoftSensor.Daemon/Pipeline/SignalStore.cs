@@ -6,9 +6,9 @@ namespace SoftSensor.Daemon.Pipeline;
 
 /// <summary>
 /// The latest values of one reactor's tags with a short history each, so that a cycle at time t can
-/// take each tag at t − its dead time (METHODS.md 1.4: shift the analyser readings by the configured
+/// take each tag at t − its dead time (docs/methods.md §1.4: shift the analyser readings by the configured
 /// dead time). Staleness is judged at alignment: an input whose usable value is older than its
-/// maximum age is Bad (METHODS.md 1.8). Not thread-safe: owned by one pipeline task.
+/// maximum age is Bad (docs/methods.md §1.8). Not thread-safe: owned by one pipeline task.
 /// </summary>
 internal sealed class SignalStore
 {

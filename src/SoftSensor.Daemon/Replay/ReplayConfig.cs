@@ -114,7 +114,7 @@ internal sealed record OfflineLayout
 /// <summary>Gas balance settings of the replay.</summary>
 internal sealed record GasConfig
 {
-    /// <summary>Reference temperature of the mass flow controllers, °C, and pressure, kPa (METHODS.md 1.1).</summary>
+    /// <summary>Reference temperature of the mass flow controllers, °C, and pressure, kPa (docs/methods.md §1.1).</summary>
     public double ReferenceTemperatureC { get; init; }
 
     /// <inheritdoc cref="ReferenceTemperatureC"/>

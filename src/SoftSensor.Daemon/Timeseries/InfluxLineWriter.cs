@@ -7,7 +7,7 @@ namespace SoftSensor.Daemon.Timeseries;
 /// The InfluxDB v2 write API through InfluxDB.Client 5.1.0: one awaited <c>WriteApiAsync</c> call
 /// per batch, millisecond precision. WriteApiAsync throws on failure; that becomes a
 /// <see cref="WriteOutcome"/> here (the client's own batching <c>WriteApi</c> is not used: it keeps
-/// nothing on disk, INTEGRATION.md). The token goes to the client only, never to a log.
+/// nothing on disk, docs/daemon.md). The token goes to the client only, never to a log.
 /// </summary>
 internal sealed class InfluxLineWriter : ITimeseriesWriter, IDisposable
 {

@@ -1,6 +1,6 @@
 namespace SoftSensor.Simulation.Gas;
 
-/// <summary>Dissolved CO2, bicarbonate and carbonate at a fixed pH (METHODS.md 1.5).</summary>
+/// <summary>Dissolved CO2, bicarbonate and carbonate at a fixed pH (docs/methods.md §1.5).</summary>
 public static class CarbonateEquilibrium
 {
     /// <summary>pK1 of carbonic acid in water: 3404.71/T - 14.8435 + 0.032786 T (Harned &amp; Davis 1943, J. Am. Chem. Soc. 65).</summary>

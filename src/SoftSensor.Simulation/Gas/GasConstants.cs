@@ -12,7 +12,7 @@ public static class GasConstants
     /// <summary>Molar mass of water, g/mol (IUPAC 2021: 2 × 1.008 + 15.999).</summary>
     public const double WaterGPerMol = 18.015;
 
-    /// <summary>Molar volume at a reference state, L/mol: V_m = R T / p (METHODS.md 1.1).</summary>
+    /// <summary>Molar volume at a reference state, L/mol: V_m = R T / p (docs/methods.md §1.1).</summary>
     public static double MolarVolumeLPerMol(double temperatureC, double pressureKPa) =>
         R * (temperatureC + ZeroCelsiusK) / pressureKPa;
 }

@@ -1,7 +1,7 @@
 namespace SoftSensor.Simulation.Kinetics;
 
 /// <summary>
-/// Volumetric rates of the simulated culture at one instant, production positive (METHODS.md
+/// Volumetric rates of the simulated culture at one instant, production positive (docs/methods.md
 /// conventions): C-mmol/(L·h) for organics, mmol/(L·h) for O2 and CO2; OUR and CER positive.
 /// </summary>
 public readonly record struct CultureRates(

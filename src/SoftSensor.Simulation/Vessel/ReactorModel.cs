@@ -10,7 +10,7 @@ namespace SoftSensor.Simulation.Vessel;
 /// Right-hand side of the fed-batch model: culture, liquid volume (feed, base, evaporation),
 /// gas-liquid transfer of O2 and CO2 (kLa, Benson–Krause and Henry solubilities, carbonate
 /// equilibrium at the controlled pH) and a well-mixed headspace at constant pressure whose outlet
-/// flow follows from the mole balance, so that N2 + Ar are conserved (METHODS.md 1.3). Time in h.
+/// flow follows from the mole balance, so that N2 + Ar are conserved (docs/methods.md §1.3). Time in h.
 /// </summary>
 internal sealed class ReactorModel
 {

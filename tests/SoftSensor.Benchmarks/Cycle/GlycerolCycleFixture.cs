@@ -41,7 +41,7 @@ internal static class GlycerolCycleFixture
     /// With factor 1 the readings close the C, degree-of-reduction and N balances (invented demo values): the feed
     /// (0.12 L/h of 600 g/L glycerol) and the base (0.0068 L/h of 13.4 mol/L NH3) in 33 kg of broth give, with biomass
     /// CH1.8O0.5N0.2 from the N balance, OUR 69.8 and CER 58.4 mmol/(L·h), which 30 NL/min of air leave as 18.22 % O2
-    /// and 2.406 % CO2 in the dry off-gas (inert balance, METHODS.md 1.3). So the test passes and the diagnosis is skipped.
+    /// and 2.406 % CO2 in the dry off-gas (inert balance, docs/methods.md §1.3). So the test passes and the diagnosis is skipped.
     /// </summary>
     public static void Fill(AlignedInputs a, DateTimeOffset t, double co2Factor)
     {

@@ -2,7 +2,7 @@ using System.Reflection;
 
 namespace SoftSensor.Core.Tests.Architecture;
 
-/// <summary>Keeps SoftSensor.Core free of infrastructure (ARCHITECTURE.md: Core → MathNet.Numerics only).</summary>
+/// <summary>Keeps SoftSensor.Core free of infrastructure (DEVELOPERS.md: Core → MathNet.Numerics only).</summary>
 public class CoreDependencyTests
 {
     [Fact]

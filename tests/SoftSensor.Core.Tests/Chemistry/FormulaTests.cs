@@ -41,7 +41,7 @@ public class FormulaTests
     [Fact]
     public void MolarMass_of_standard_biomass_is_about_24_6_g_per_C_mol()
     {
-        // METHODS.md 2.1 and Villadsen, Nielsen & Liden 2011, ch. 3: CH1.8O0.5N0.2 about 24.6 g/C-mol.
+        // docs/methods.md §2.1 and Villadsen, Nielsen & Liden 2011, ch. 3: CH1.8O0.5N0.2 about 24.6 g/C-mol.
         // With IUPAC 2021 conventional atomic weights: 12.011 + 1.8*1.008 + 0.5*15.999 + 0.2*14.007 = 24.6263.
         var f = Formula.Parse("CH1.8O0.5N0.2");
         Assert.Equal(24.6263, f.MolarMassGPerMol, 4);

@@ -53,7 +53,7 @@ public class BiomassIntegratorTests
     [Fact]
     public void Run_without_volume_signal_integrates_feed_and_base()
     {
-        // V(t) = V0 + (F_feed + F_base) t (METHODS.md 1.7): 100 L + (2 + 0.5) L/h × 4 h = 110 L.
+        // V(t) = V0 + (F_feed + F_base) t (docs/methods.md §1.7): 100 L + (2 + 0.5) L/h × 4 h = 110 L.
         var s = EstimationFixtures.Settings();
         var state = new EstimatorState(s.HistoryCapacity);
         var o = new CycleOutputs();

@@ -5,13 +5,13 @@ using SoftSensor.Core.Signals;
 namespace SoftSensor.Core.Tests.Estimation;
 
 /// <summary>
-/// The cycle's dissolved-CO2 correction against METHODS.md 1.5, CER = CTR + (1/V) d(V C_TIC)/dt with
+/// The cycle's dissolved-CO2 correction against docs/methods.md §1.5, CER = CTR + (1/V) d(V C_TIC)/dt with
 /// C_TIC = H_CO2(T) p_CO2 (1 + K1/[H+] + K1 K2/[H+]²), computed here from the published constants:
 /// pK1 = 3404.71/T - 14.8435 + 0.032786 T (Harned &amp; Davis 1943, J. Am. Chem. Soc. 65), pK2 =
 /// 2902.39/T - 6.4980 + 0.02379 T (Harned &amp; Scholes 1941, J. Am. Chem. Soc. 63; from memory, see
 /// CarbonateEquilibriumTests), H_CO2 = 3.3e-4 mol/(m³·Pa) at 298.15 K with d ln H/d(1/T) = 2400 K
 /// (Sander's compilation), p_CO2 = y_CO2,dry (p - p_sat(T)) (Dalton's law) with p_sat(37 °C) =
-/// 6281.9 Pa (IAPWS-IF97, METHODS.md 1.3). Inputs are invented values of a culture at 37 °C.
+/// 6281.9 Pa (IAPWS-IF97, docs/methods.md §1.3). Inputs are invented values of a culture at 37 °C.
 /// </summary>
 public class CerCorrectionStepTests
 {

@@ -4,7 +4,7 @@ namespace SoftSensor.Core.Tests.Estimation;
 
 public class FeedAdvisoryTests
 {
-    // Worked by hand from F = (mu_set / Y_XS + m_S) X V / c_S (METHODS.md section 4):
+    // Worked by hand from F = (mu_set / Y_XS + m_S) X V / c_S (docs/methods.md §4):
     // X = 20 g/L, V = 100 L, mu_set 0.15 1/h, Y_XS 0.5 g/g, m_S 0.02 g/(g·h), c_S 500 g/L
     // -> (0.3 + 0.02) × 2000 / 500 = 1.28 L/h.
     private static readonly EstimatorSettings Settings = new()
@@ -45,7 +45,7 @@ public class FeedAdvisoryTests
     [Fact]
     public void Compute_with_dissolved_oxygen_estimates_kla_from_our()
     {
-        // kLa = OTR / (C* - C) (METHODS.md 1.6): 50 / (0.236 × 0.6) = 353.1 1/h at DO 40 %.
+        // kLa = OTR / (C* - C) (docs/methods.md §1.6): 50 / (0.236 × 0.6) = 353.1 1/h at DO 40 %.
         var a = FeedAdvisory.Compute(2000, 100, 50, 40, Settings);
         Assert.Equal(50 / (0.236 * 0.6), a.KlaPerH, 9);
         Assert.Equal(FeedLimit.None, FeedAdvisory.Compute(0, 100, 50, 40, Settings).Limit);

@@ -47,7 +47,7 @@ public class OfflineCorrectionTests
     public void ApplyRemoval_late_with_measured_volume_gives_the_state_of_the_removal_taken_on_time()
     {
         // With the volume measured, the level already shows the withdrawal; the biomass balance
-        // (METHODS.md section 4, d(XV)/dt = r_X V - X·F_out) must lose X·ΔV at the withdrawal whether the
+        // (docs/methods.md §4, d(XV)/dt = r_X V - X·F_out) must lose X·ΔV at the withdrawal whether the
         // operator announced it on time or hours later: the re-propagation reproduces the on-time run.
         var s = EstimationFixtures.Settings();
         var onTime = Grow(s, 180, withdrawAtMinute: 60, measuredVolume: true);
@@ -64,7 +64,7 @@ public class OfflineCorrectionTests
     public void ApplyRemoval_with_integrated_volume_takes_out_the_withdrawn_volume_and_its_biomass()
     {
         // Integrated volume: the withdrawal lowers every later volume by ΔV; the biomass balance loses the
-        // grams in the withdrawn broth, X·ΔV at the time of the withdrawal (METHODS.md section 4), and the
+        // grams in the withdrawn broth, X·ΔV at the time of the withdrawal (docs/methods.md §4), and the
         // grams grown afterwards stay as the balance computed them.
         var s = EstimationFixtures.Settings();
         var state = Grow(s, 180, withdrawAtMinute: -1, measuredVolume: false);

@@ -4,7 +4,7 @@ using static SoftSensor.Core.Tests.Flux.ShippedModels;
 
 namespace SoftSensor.Core.Tests.Flux;
 
-/// <summary>The flux model's rates through the elemental-balance engine (METHODS.md 3, consistency check).</summary>
+/// <summary>The flux model's rates through the elemental-balance engine (docs/methods.md §3, consistency check).</summary>
 public class BalanceCrossCheckTests
 {
     [Theory]

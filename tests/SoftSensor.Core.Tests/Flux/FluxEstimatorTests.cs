@@ -4,7 +4,7 @@ using static SoftSensor.Core.Tests.Flux.ShippedModels;
 
 namespace SoftSensor.Core.Tests.Flux;
 
-/// <summary>Live use: growth from OUR/CER with no yield specification (METHODS.md 3).</summary>
+/// <summary>Live use: growth from OUR/CER with no yield specification (docs/methods.md §3).</summary>
 public class FluxEstimatorTests
 {
     [Fact]

@@ -14,7 +14,7 @@ public class PublishedChecksTests
     public void Yeast_without_growth_gives_the_Gay_Lussac_ethanol_yield_0_511_g_per_g_hexose()
     {
         // Gay-Lussac equation C6H12O6 -> 2 C2H5OH + 2 CO2: 2 * 46.07 / 180.16 = 0.511 g/g
-        // (METHODS.md 6; molar masses from IUPAC 2021 standard atomic weights).
+        // (docs/methods.md §6; molar masses from IUPAC 2021 standard atomic weights).
         var net = Network(Yeast);
         var s = AtGrowth(net, 0.0, RestingBiomassCmmolPerL);
         Assert.Equal(FluxSolveStatus.Determined, s.Status);
@@ -43,7 +43,7 @@ public class PublishedChecksTests
     [Fact]
     public void Bacterium_oxidising_glycerol_without_growth_has_RQ_six_sevenths()
     {
-        // C3H8O3 + 3.5 O2 -> 3 CO2 + 4 H2O: RQ = 3 / 3.5 = 6/7 = 0.857 (METHODS.md 6, stoichiometry).
+        // C3H8O3 + 3.5 O2 -> 3 CO2 + 4 H2O: RQ = 3 / 3.5 = 6/7 = 0.857 (docs/methods.md §6, stoichiometry).
         var net = Network(Bacterium);
         var s = AtGrowth(net, 0.0, RestingBiomassCmmolPerL);
         Assert.Equal(FluxSolveStatus.Determined, s.Status);
@@ -67,7 +67,7 @@ public class PublishedChecksTests
     [Fact]
     public void Complete_oxidation_of_ethanol_has_RQ_two_thirds()
     {
-        // C2H6O + 3 O2 -> 2 CO2 + 3 H2O: RQ = 2/3 (METHODS.md 6, stoichiometry); pathway: alcohol and
+        // C2H6O + 3 O2 -> 2 CO2 + 3 H2O: RQ = 2/3 (docs/methods.md §6, stoichiometry); pathway: alcohol and
         // acetaldehyde dehydrogenase, acetyl-CoA synthetase (2 ATP equivalents), citric acid cycle
         // (Berg, Tymoczko & Stryer, Biochemistry).
         const string json = """

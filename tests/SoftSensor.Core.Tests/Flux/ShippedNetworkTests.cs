@@ -36,7 +36,7 @@ public class ShippedNetworkTests
     [InlineData(Yeast)]
     public void Predicted_rates_close_every_elemental_balance_to_1e_9(string file)
     {
-        // METHODS.md 3: rates of an elementally balanced network close the black-box balance to numerical precision.
+        // docs/methods.md §3: rates of an elementally balanced network close the black-box balance to numerical precision.
         var net = Network(file);
         double x = net.Model.BiomassCmmolPerL(10.0);
         var s = AtGrowth(net, 0.2 * x, x);
@@ -52,7 +52,7 @@ public class ShippedNetworkTests
     public void Bacterium_gives_one_extra_equation_the_ATP_balance()
     {
         // {glycerol, O2, CO2, NH3, H2O, biomass}: 6 compounds, rank(E) = 4 (C, H, O, N), 2 degrees of
-        // freedom (METHODS.md 2.3); the network's ATP balance fixes one, the basis the other.
+        // freedom (docs/methods.md §2.3); the network's ATP balance fixes one, the basis the other.
         var net = Network(Bacterium);
         Assert.Equal(1, net.ExtraEquations);
     }
@@ -61,7 +61,7 @@ public class ShippedNetworkTests
     public void Yeast_anaerobic_network_gives_two_extra_equations()
     {
         // {sucrose, ethanol, glycerol, CO2, NH3, H2O, biomass}: 7 compounds, rank(E) = 4, 3 degrees of
-        // freedom; the ATP and the NADH balances (no electron acceptor) leave only the basis (METHODS.md 3).
+        // freedom; the ATP and the NADH balances (no electron acceptor) leave only the basis (docs/methods.md §3).
         var net = Network(Yeast);
         Assert.Equal(2, net.ExtraEquations);
     }

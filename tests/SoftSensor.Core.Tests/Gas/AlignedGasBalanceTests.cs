@@ -9,7 +9,7 @@ public class AlignedGasBalanceTests
 
     private static AlignedInputs HandCase()
     {
-        // The hand-worked case of METHODS.md section 6 as a cycle's inputs, in the roles' units (%).
+        // The hand-worked case of docs/methods.md §6 as a cycle's inputs, in the roles' units (%).
         var a = new AlignedInputs { Time = T0 };
         a.Set(SignalRole.AirFlowNlPerMin, 10.0, SampleQuality.Good, T0);
         a.Set(SignalRole.InletO2Percent, 20.946, SampleQuality.Good, T0);

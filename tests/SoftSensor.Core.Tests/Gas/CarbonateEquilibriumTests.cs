@@ -5,7 +5,7 @@ namespace SoftSensor.Core.Tests.Gas;
 public class CarbonateEquilibriumTests
 {
     // Harned & Davis 1943 (J. Am. Chem. Soc. 65, 2030), their fitted equation: pK1 6.351 at 25 °C and
-    // 6.303 at 37 °C (METHODS.md 1.5, computed from it; the accepted 25 °C value is 6.35).
+    // 6.303 at 37 °C (docs/methods.md §1.5, computed from it; the accepted 25 °C value is 6.35).
     [Theory]
     [InlineData(25.0, 6.351)]
     [InlineData(37.0, 6.303)]

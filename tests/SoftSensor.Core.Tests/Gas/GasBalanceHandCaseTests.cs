@@ -5,8 +5,8 @@ namespace SoftSensor.Core.Tests.Gas;
 
 public class GasBalanceHandCaseTests
 {
-    // METHODS.md section 6, "an off-gas case worked by hand" (inert balance, recomputed twice
-    // independently), with the equations of METHODS.md 1.1 and 1.3:
+    // docs/methods.md §6, "an off-gas case worked by hand" (inert balance, recomputed twice
+    // independently), with the equations of docs/methods.md §1.1 and 1.3:
     //   V_m   = R T / p = 8.314462618 * 273.15 / 101.325       = 22.413 970 L/mol (CODATA 2018)
     //   n_in  = 10.0 NL/min * 60 / 22.413 970                  = 26.769 020 mol/h
     //   inert in  = 1 - 0.20946 - 0.00042                      = 0.790 12
@@ -38,7 +38,7 @@ public class GasBalanceHandCaseTests
     {
         // The same off-gas, saturated with water in a 30 °C analyser cell at 101.325 kPa:
         // y_H2O = p_sat(303.15 K) / p = 4.2467 kPa / 101.325 kPa = 0.041911 (IAPWS-IF97 region 4),
-        // so the analyser reads y_wet = y_dry (1 - y_H2O) (METHODS.md 1.3).
+        // so the analyser reads y_wet = y_dry (1 - y_H2O) (docs/methods.md §1.3).
         double w = WaterVapour.SaturationPressureKPa(303.15) / 101.325;
         Assert.Equal(0.041911, w, 0.000001);
         double o2Wet = 0.195 * (1 - w);

@@ -4,7 +4,7 @@ using SoftSensor.Core.Signals;
 
 namespace SoftSensor.Core.Tests.Gas;
 
-/// <summary>Invariants of the inert balance (METHODS.md 1.3) over seeded random valid inputs.</summary>
+/// <summary>Invariants of the inert balance (docs/methods.md §1.3) over seeded random valid inputs.</summary>
 public class GasBalancePropertyTests
 {
     private const string Seed = "0N0XIzNsQ0O2";

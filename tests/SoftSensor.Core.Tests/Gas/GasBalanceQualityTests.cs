@@ -3,7 +3,7 @@ using SoftSensor.Core.Signals;
 
 namespace SoftSensor.Core.Tests.Gas;
 
-/// <summary>Data-quality findings are results, never exceptions (METHODS.md 1.8).</summary>
+/// <summary>Data-quality findings are results, never exceptions (docs/methods.md §1.8).</summary>
 public class GasBalanceQualityTests
 {
     private static readonly InletComposition Air = InletComposition.FromGasLines();

@@ -5,7 +5,7 @@ namespace SoftSensor.Core.Tests.Gas;
 public class OxygenSolubilityTests
 {
     // Benson & Krause 1984 (Limnol. Oceanogr. 29, 620), as tabulated by USGS (Office of Water
-    // Quality Technical Memorandum 2011.03, DO tables) and in METHODS.md 1.6: fresh water, 1 atm,
+    // Quality Technical Memorandum 2011.03, DO tables) and in docs/methods.md §1.6: fresh water, 1 atm,
     // water-saturated air: 9.09 (20 °C), 8.26 (25 °C), 7.56 (30 °C), 6.73 mg/L (37 °C), to 0.01 mg/L.
     [Theory]
     [InlineData(20.0, 9.09)]

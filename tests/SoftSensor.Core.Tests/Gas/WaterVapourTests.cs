@@ -16,7 +16,7 @@ public class WaterVapourTests
         Assert.Equal(expectedMPa, p, expectedMPa * 5e-9);
     }
 
-    // METHODS.md 1.3: culture temperatures computed from the same equation; Pa values rounded to
+    // docs/methods.md §1.3: culture temperatures computed from the same equation; Pa values rounded to
     // 0.1 Pa. They agree with the steam tables' 2.3392 kPa at 20 °C and 3.1699 kPa at 25 °C
     // (e.g. Wagner & Pruss 2002, J. Phys. Chem. Ref. Data 31, 387 - IAPWS-95; from memory).
     [Theory]

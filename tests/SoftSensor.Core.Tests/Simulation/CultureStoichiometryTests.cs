@@ -9,7 +9,7 @@ public class CultureStoichiometryTests
     [Fact]
     public void EvaluateAtUptake_glucose_growth_matches_the_worked_elemental_balance()
     {
-        // METHODS.md section 6 (elemental balance, recomputed): aerobic growth on glucose with
+        // docs/methods.md §6 (elemental balance, recomputed): aerobic growth on glucose with
         // Y_XS = 0.5 g/g and biomass CH1.8O0.5N0.2 gives per C-mol glucose: biomass 0.6096,
         // CO2 0.3904, O2 0.3599, NH3 0.1219; RQ 1.085. No ash, no maintenance, no by-product.
         var spec = new CultureSpec

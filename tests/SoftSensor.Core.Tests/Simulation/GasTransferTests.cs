@@ -10,7 +10,7 @@ public class GasTransferTests
     {
         // Benson & Krause 1984 (USGS table): 6.73 mg/L at 37 °C under 1 atm moist air; scaled with
         // the O2 partial pressure (150 kPa abs head pressure, water vapour 6.28 kPa at 37 °C from
-        // IAPWS-IF97) and the scenario's salting-out factor 0.9 (METHODS.md 1.6).
+        // IAPWS-IF97) and the scenario's salting-out factor 0.9 (docs/methods.md §1.6).
         var s = ShippedScenarios.Load("glycerol");
         var t = VirtualReactor.Create(s, 1).Truth();
         double pw = 6.2819;
@@ -37,7 +37,7 @@ public class GasTransferTests
     [Fact]
     public void Truth_outlet_flow_and_otr_follow_the_inert_balance_of_METHODS_1_3()
     {
-        // METHODS.md 1.3: n_out = n_in (1 - yO2_in - yCO2_in) / (1 - yO2_out - yCO2_out) and
+        // docs/methods.md §1.3: n_out = n_in (1 - yO2_in - yCO2_in) / (1 - yO2_out - yCO2_out) and
         // OTR = (n_in yO2_in - n_out yO2_out) / V_L. The simulator's headspace is dynamic; at a
         // slowly changing state the formula must give its outlet flow and OTR within 0.5 %.
         var s = ShippedScenarios.Load("glycerol");

@@ -20,7 +20,7 @@ public class InstrumentTests
     [Fact]
     public void ReadTags_offgas_is_the_headspace_composition_one_dead_time_earlier()
     {
-        // METHODS.md 1.4: the analyser sees the off-gas late by the sample line's dead time.
+        // docs/methods.md §1.4: the analyser sees the off-gas late by the sample line's dead time.
         var r = VirtualReactor.Create(Perfect(), 1);
         r.Step(TimeSpan.FromHours(12));
         var early = r.Truth();

@@ -15,7 +15,7 @@ public class PhysicalPropertyTests
         Assert.Equal(expectedKPa, WaterVapour.SaturationPressureKPa(t), expectedKPa * 1e-8);
     }
 
-    // Benson & Krause 1984 as tabulated by USGS (DOTABLES) and METHODS.md 1.6: fresh water,
+    // Benson & Krause 1984 as tabulated by USGS (DOTABLES) and docs/methods.md §1.6: fresh water,
     // 1 atm moist air: 9.09 mg/L at 20 °C, 8.26 at 25 °C, 7.56 at 30 °C, 6.73 at 37 °C (to ±0.01).
     [Theory]
     [InlineData(20.0, 9.09)]
@@ -30,7 +30,7 @@ public class PhysicalPropertyTests
     [Fact]
     public void Pk1_matches_Harned_and_Davis_at_25_and_37_C()
     {
-        // Harned & Davis 1943 via METHODS.md 1.5: pK1 = 6.351 at 25 °C and 6.303 at 37 °C.
+        // Harned & Davis 1943 via docs/methods.md §1.5: pK1 = 6.351 at 25 °C and 6.303 at 37 °C.
         Assert.Equal(6.351, CarbonateEquilibrium.Pk1(298.15), 0.002);
         Assert.Equal(6.303, CarbonateEquilibrium.Pk1(310.15), 0.002);
     }

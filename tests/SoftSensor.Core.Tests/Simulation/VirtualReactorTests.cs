@@ -37,7 +37,7 @@ public class VirtualReactorTests
     [Fact]
     public void Truth_inert_gas_is_conserved_in_the_gas_model()
     {
-        // METHODS.md 1.3: N2 + Ar pass through unchanged; in - out equals the headspace's change.
+        // docs/methods.md §1.3: N2 + Ar pass through unchanged; in - out equals the headspace's change.
         var r = VirtualReactor.Create(ShippedScenarios.Load("glycerol"), 1);
         r.Step(TimeSpan.FromHours(24));
         var t = r.Truth();

@@ -3,15 +3,15 @@ using SoftSensor.Core.Stoichiometry;
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
 /// <summary>
-/// Aerobic growth on glucose with a yield specification: METHODS.md 2.3 (6 compounds, rank 4, 2 degrees
-/// of freedom) and the check values of METHODS.md 6 (recomputed from the elemental balance).
+/// Aerobic growth on glucose with a yield specification: docs/methods.md §2.3 (6 compounds, rank 4, 2 degrees
+/// of freedom) and the check values of docs/methods.md §6 (recomputed from the elemental balance).
 /// </summary>
 public class AerobicGlucoseSpecificationTests
 {
     [Fact]
     public void Analysis_six_compounds_rank_four_leaves_two_degrees_of_freedom()
     {
-        // METHODS.md 2.3: {glucose, O2, NH3, biomass, CO2, H2O}: 6 - 4 = 2.
+        // docs/methods.md §2.3: {glucose, O2, NH3, biomass, CO2, H2O}: 6 - 4 = 2.
         var solver = BalanceSolver.Create(TestModels.AerobicGlucose, ["glucose"]);
 
         Assert.Equal(4, solver.Analysis.ElementMatrixRank);
@@ -24,7 +24,7 @@ public class AerobicGlucoseSpecificationTests
     [Fact]
     public void Solve_yield_of_half_a_gram_per_gram_gives_the_METHODS_rates_and_RQ()
     {
-        // METHODS.md 6: Y_XS = 0.5 g/g, biomass CH1.8O0.5N0.2 -> per C-mol glucose: biomass 0.6096,
+        // docs/methods.md §6: Y_XS = 0.5 g/g, biomass CH1.8O0.5N0.2 -> per C-mol glucose: biomass 0.6096,
         // CO2 0.3904, O2 0.3599, NH3 0.1219, H2O 0.6342; RQ 1.085 (elemental balance, recomputed).
         var model = TestModels.AerobicGlucose;
         var yield = Specification.MassYield(model, "biomass", "glucose", 0.5);

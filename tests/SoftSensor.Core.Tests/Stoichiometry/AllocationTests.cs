@@ -2,7 +2,7 @@ using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
-/// <summary>The per-cycle path allocates nothing once the solver is built (STYLE.md: factor once, solve many).</summary>
+/// <summary>The per-cycle path allocates nothing once the solver is built (factor once, solve many: MathNet.Numerics ISolver.Solve(input, result)).</summary>
 public class AllocationTests
 {
     [Fact]

@@ -74,7 +74,7 @@ public class DiagnosisTests
     public void Solve_full_covariance_is_accepted_and_changes_h()
     {
         // OUR and CER share the outlet flow of the inert balance, so their errors correlate
-        // (METHODS.md 2.4). A positive correlation between O2 (negative) and CO2 (positive) errors
+        // (docs/methods.md §2.4). A positive correlation between O2 (negative) and CO2 (positive) errors
         // differs from the diagonal case.
         var solver = BalanceSolver.Create(TestModels.FourCompound, ["substrate", "o2", "co2", "biomass"]);
         double[] q = [-1.000, -0.380, 0.400, 0.600];

@@ -3,7 +3,7 @@ using SoftSensor.Core.Stoichiometry;
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
 /// <summary>
-/// The reconciliation case of METHODS.md section 6, worked by hand with the equations of section 2.4
+/// The reconciliation case of docs/methods.md §6, worked by hand with the equations of section 2.4
 /// (Wang &amp; Stephanopoulos 1983; van der Heijden et al. 1994).
 /// </summary>
 public class HandWorkedReconciliationTests
@@ -39,7 +39,7 @@ public class HandWorkedReconciliationTests
 
         Assert.Equal(BalanceStatus.Solved, outcome.Status);
         Assert.Equal(2, outcome.Dof);
-        Assert.Equal(0.137, outcome.H, 0.0005); // METHODS.md 6: 0.137 (hand value above: 0.13697)
+        Assert.Equal(0.137, outcome.H, 0.0005); // docs/methods.md §6: 0.137 (hand value above: 0.13697)
         Assert.Equal(5.991, outcome.Critical, 3); // χ² 2 dof 95 %: 5.99 (NIST/SEMATECH e-Handbook, section 1.3.6.7.4)
         Assert.True(outcome.Consistent);
         Assert.True(outcome.HasTest);
@@ -53,7 +53,7 @@ public class HandWorkedReconciliationTests
 
         var outcome = solver.Solve(q, TestModels.Relative(0.05, q), new double[4], new double[4]);
 
-        Assert.Equal(17.0, outcome.H, 0.005); // METHODS.md 6: 17.0 (hand value above: 17.0005)
+        Assert.Equal(17.0, outcome.H, 0.005); // docs/methods.md §6: 17.0 (hand value above: 17.0005)
         Assert.False(outcome.Consistent);
     }
 

@@ -14,7 +14,7 @@ namespace SoftSensor.Core.Tests.Stoichiometry;
 /// </summary>
 public class KayserChemostatTests(ITestOutputHelper output)
 {
-    // Assumed here, not given in the CSV: biomass CH1.8O0.5N0.2 with 6 % ash (METHODS.md 2.1:
+    // Assumed here, not given in the CSV: biomass CH1.8O0.5N0.2 with 6 % ash (docs/methods.md §2.1:
     // standard composition, ash typically 5-10 %); the ammonium rate counted as NH4+ (18.038 g/mol).
     private const string ModelJson = """
         {
@@ -65,7 +65,7 @@ public class KayserChemostatTests(ITestOutputHelper output)
     [Fact]
     public void Row_at_D_0_134_matches_the_specific_rates_METHODS_quotes()
     {
-        // METHODS.md 6 (Kayser et al. 2005): qO2 3.40, qCO2 3.98 mmol/(g·h), Y_XS 0.53 g/g at D = 0.134 1/h.
+        // docs/methods.md §6 (Kayser et al. 2005): qO2 3.40, qCO2 3.98 mmol/(g·h), Y_XS 0.53 g/g at D = 0.134 1/h.
         // From the CSV's specific rates r_o2 0.1089 and r_co2 0.175 g/(g·h) (CTR / X = 0.924 / 5.29 gives
         // 3.97: the CSV rounds X and CTR; the difference, 0.3 %, is within that rounding).
         Assert.Equal(3.40, 0.1089 / 31.998 * 1000, 2);

@@ -3,7 +3,7 @@ using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
-/// <summary>Water under the C, gamma and N balances (METHODS.md 2.2: "water drops out").</summary>
+/// <summary>Water under the C, gamma and N balances (docs/methods.md §2.2: "water drops out").</summary>
 public class OutsideBalancesTests
 {
     [Fact]

@@ -5,7 +5,7 @@ namespace SoftSensor.Core.Tests.Stoichiometry;
 /// nested loops (the code the kernel had before it was tuned for speed): eps = R_r q, Phi = R_r Psi R_r^T,
 /// h = eps^T Phi^-1 eps, q* = q - Psi R_r^T Phi^-1 eps, Psi* = Psi - Psi R_r^T Phi^-1 R_r Psi,
 /// q_u = K q*, Cov(q_u) = K Psi* K^T (Wang &amp; Stephanopoulos 1983; van der Heijden et al. 1994a;
-/// METHODS.md 2.4). Cholesky: Golub &amp; Van Loan, Matrix Computations, 4th ed., algorithm 4.2.1.
+/// docs/methods.md §2.4). Cholesky: Golub &amp; Van Loan, Matrix Computations, 4th ed., algorithm 4.2.1.
 /// A test oracle for <c>BalanceKernelSpeedTests</c>, not used by the product.
 /// </summary>
 internal static class StraightforwardKernel

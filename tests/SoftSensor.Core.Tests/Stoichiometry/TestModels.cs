@@ -2,10 +2,10 @@ using SoftSensor.Core.Stoichiometry;
 
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
-/// <summary>Models shared by the stoichiometry tests (formulas from METHODS.md 2.1; roles as in config/models).</summary>
+/// <summary>Models shared by the stoichiometry tests (formulas from docs/methods.md §2.1; roles as in config/models).</summary>
 internal static class TestModels
 {
-    /// <summary>The four-compound case of METHODS.md 6 with the carbon and degree-of-reduction balances.</summary>
+    /// <summary>The four-compound case of docs/methods.md §6 with the carbon and degree-of-reduction balances.</summary>
     public const string FourCompoundJson = """
         {
           "name": "hand-worked reconciliation case",
@@ -19,7 +19,7 @@ internal static class TestModels
         }
         """;
 
-    /// <summary>Aerobic growth on glucose with all elements balanced (METHODS.md 2.3 and 6); biomass without ash.</summary>
+    /// <summary>Aerobic growth on glucose with all elements balanced (docs/methods.md §2.3 and 6); biomass without ash.</summary>
     public const string AerobicGlucoseJson = """
         {
           "name": "aerobic growth on glucose",

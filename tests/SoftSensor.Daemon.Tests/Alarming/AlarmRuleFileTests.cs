@@ -32,7 +32,7 @@ public sealed class AlarmRuleFileTests : IDisposable
         Assert.Equal(TimeSpan.FromHours(8), set.MaxShelve);
         var o2 = Assert.Single(set.Rules, r => r.Id == "offgas_o2_enriched");
         // 23.5 % O2 by volume: the common occupational threshold of an oxygen-enriched atmosphere
-        // (US OSHA 29 CFR 1910.146(b), from memory; METHODS.md section 5 calls it common practice).
+        // (US OSHA 29 CFR 1910.146(b), from memory; docs/methods.md §5 calls it common practice).
         Assert.Equal((AlarmConditionKind.High, 23.5, "safety"), (o2.Kind, o2.Limit, o2.Category));
         Assert.Equal(SignalRef.Input(SignalRole.OutletO2Percent), o2.Source);
         Assert.Contains(set.Rules, r => r.Id == "vessel_pressure_high_high" && r.Kind == AlarmConditionKind.HighHigh);

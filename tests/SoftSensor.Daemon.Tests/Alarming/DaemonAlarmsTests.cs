@@ -11,7 +11,7 @@ namespace SoftSensor.Daemon.Tests.Alarming;
 
 /// <summary>
 /// Alarms and the time-series sink in the running daemon, against a real mosquitto and a real
-/// VictoriaMetrics: the hand-worked off-gas case (RQ 1.0105, METHODS.md section 6) trips an RQ
+/// VictoriaMetrics: the hand-worked off-gas case (RQ 1.0105, docs/methods.md §6) trips an RQ
 /// rule; the alarm is published retained, acknowledged over MQTT, shelved from the status page,
 /// journaled; the estimates reach the database.
 /// </summary>

@@ -23,7 +23,7 @@ public class SimulatedEpisodeTests(Xunit.Abstractions.ITestOutputHelper output)
         InitialVolumeL = 30,
         BrothDensityKgPerL = 1.03,
         InitialSubstrateGPerL = 10,
-        BiomassGPerCMol = 24.63,       // CH1.8O0.5N0.2 (METHODS.md 2.1)
+        BiomassGPerCMol = 24.63,       // CH1.8O0.5N0.2 (docs/methods.md §2.1)
         AshFraction = 0.08,
         SubstrateGPerCMol = 28.525,    // sucrose C12H22O11, 342.30 g/mol / 12 (recomputed)
         FeedSubstrateGPerL = 500,

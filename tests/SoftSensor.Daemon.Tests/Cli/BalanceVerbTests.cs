@@ -33,7 +33,7 @@ public class BalanceVerbTests
     [Fact]
     public void Run_glucose_with_mass_yield_prints_the_METHODS_rates_as_json()
     {
-        // METHODS.md 6: Y_XS 0.5 g/g -> biomass 0.6096, CO2 0.3904, O2 0.3599, NH3 0.1219, H2O 0.6342 per C-mol glucose.
+        // docs/methods.md §6: Y_XS 0.5 g/g -> biomass 0.6096, CO2 0.3904, O2 0.3599, NH3 0.1219, H2O 0.6342 per C-mol glucose.
         var (code, stdout, stderr) = Run(Model("balance-glucose-aerobic.json"), ["glucose=-1:1%"], ["massyield:biomass/glucose=0.5"]);
 
         Assert.Equal(0, code);
@@ -58,7 +58,7 @@ public class BalanceVerbTests
     [Fact]
     public void Run_rq_specification_gives_the_same_rates_as_the_yield()
     {
-        // RQ 1.085 (METHODS.md 6) as the specification instead of the yield.
+        // RQ 1.085 (docs/methods.md §6) as the specification instead of the yield.
         var (code, stdout, _) = Run(Model("balance-glucose-aerobic.json"), ["glucose=-1"], ["rq=1.0847"]);
 
         Assert.Equal(0, code);
@@ -99,7 +99,7 @@ public class BalanceVerbTests
         Assert.Equal(0, code);
         Assert.Contains("not calculable", stdout, StringComparison.Ordinal);
         // C, gamma, N over glycerol, O2, CO2, NH3, biomass: rank 3, so 5 - 3 = 2 degrees of freedom; one
-        // measured leaves one open. Water is in none of these balances (METHODS.md 2.2) and is reported apart.
+        // measured leaves one open. Water is in none of these balances (docs/methods.md §2.2) and is reported apart.
         Assert.Contains("1 more independent measurement(s) or specification(s) needed", stdout, StringComparison.Ordinal);
         Assert.Contains("outside      h2o", stdout, StringComparison.Ordinal);
     }

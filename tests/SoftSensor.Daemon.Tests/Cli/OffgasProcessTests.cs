@@ -29,7 +29,7 @@ public class OffgasProcessTests
     [Fact]
     public void Offgas_executable_hand_case_prints_one_json_document()
     {
-        // METHODS.md section 6, off-gas case worked by hand: OTR 38.629 mmol/(L h).
+        // docs/methods.md §6, off-gas case worked by hand: OTR 38.629 mmol/(L h).
         var (code, output, error) = Start(
             "offgas", "--air", "10", "--inlet-o2", "20.946", "--inlet-co2", "0.042", "--outlet-o2", "19.5", "--outlet-co2", "1.5", "--volume", "10", "--json");
 

@@ -4,7 +4,7 @@ namespace SoftSensor.Daemon.Tests.Cli;
 
 public class OffgasVerbTests
 {
-    // The hand-worked case of METHODS.md section 6 (inert balance, recomputed twice independently):
+    // The hand-worked case of docs/methods.md §6 (inert balance, recomputed twice independently):
     // 10.0 NL/min dry air at 0 °C/101.325 kPa, 10 L, inlet 20.946 % O2 / 0.042 % CO2, dry outlet
     // 19.500 % / 1.500 % -> OTR 38.629, CTR 39.035 mmol/(L h), RQ 1.0105; outlet flow 10.0015 NL/min.
     private static readonly string[] HandCase =

@@ -4,7 +4,7 @@ namespace SoftSensor.Daemon.Tests.Fixtures;
 internal static class TestConfigs
 {
     /// <summary>
-    /// Reactor r1 with the tags of the hand-worked off-gas case of METHODS.md section 6: an air MFC
+    /// Reactor r1 with the tags of the hand-worked off-gas case of docs/methods.md §6: an air MFC
     /// at 0 °C/101.325 kPa, a dry analyser, a fixed inlet 20.946/0.042 %, the volume as a tag.
     /// </summary>
     public static Dictionary<string, string?> HandCase(int brokerPort, string clientId, TimeSpan? maxAge = null, string cyclePeriod = "00:00:00.2")

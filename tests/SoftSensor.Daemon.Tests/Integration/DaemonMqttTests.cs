@@ -35,7 +35,7 @@ public sealed class DaemonMqttTests(MosquittoFixture broker) : IClassFixture<Mos
         var (_, our) = await client.WaitForAsync((t, p) => t.EndsWith("/estimate/our", StringComparison.Ordinal) && IsGood(p), Wait, "a good OUR estimate");
         var (_, rq) = await client.WaitForAsync((t, p) => t.EndsWith("/estimate/rq", StringComparison.Ordinal) && IsGood(p), Wait, "a good RQ estimate");
 
-        // METHODS.md section 6, the off-gas case worked by hand: OTR 38.629 mmol/(L·h), RQ 1.0105.
+        // docs/methods.md §6, the off-gas case worked by hand: OTR 38.629 mmol/(L·h), RQ 1.0105.
         using var ourDoc = JsonDocument.Parse(our);
         Assert.Equal(38.629, ourDoc.RootElement.GetProperty("value").GetDouble(), 0.0005);
         Assert.Equal("mmol/(L·h)", ourDoc.RootElement.GetProperty("unit").GetString());

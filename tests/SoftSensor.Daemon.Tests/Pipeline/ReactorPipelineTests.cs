@@ -57,7 +57,7 @@ public sealed class ReactorPipelineTests : IDisposable
         PublishHandCase();
         var frame = await _pipeline.RunCycleAsync(default);
 
-        // METHODS.md section 6, "an off-gas case worked by hand" (inert balance, recomputed twice independently):
+        // docs/methods.md §6, "an off-gas case worked by hand" (inert balance, recomputed twice independently):
         // 10.0 NL/min dry air (0 °C, 101.325 kPa), V_L 10 L, in 20.946/0.042 %, out 19.500/1.500 % → OTR 38.629, CTR 39.035 mmol/(L·h), RQ 1.0105.
         Assert.Equal(38.629, Value(frame, EstimateNames.Our).Value, 0.0005);
         Assert.Equal(39.035, Value(frame, EstimateNames.Cer).Value, 0.0005);
@@ -150,7 +150,7 @@ public sealed class ReactorPipelineTests : IDisposable
         pipeline.Accept(new Sample("qi201", 19.500, now, SampleQuality.Good, 0));
         await WaitUntilAsync(() => board.Get("r1")?.Cycle == 1);
         Assert.Equal(T0, board.Get("r1")!.CycleTime); // ran at once, on the trigger, without a tick
-        Assert.Equal(38.629, Value(board.Get("r1")!.Frame!, EstimateNames.Our).Value, 0.0005); // METHODS.md section 6 hand case
+        Assert.Equal(38.629, Value(board.Get("r1")!.Frame!, EstimateNames.Our).Value, 0.0005); // docs/methods.md §6 hand case
 
         await WaitUntilAsync(() => pipeline.IsWaitingForTick);
         _time.Advance(TimeSpan.FromSeconds(1)); // no trigger for one period: the fallback cycle runs

@@ -5,7 +5,7 @@ using SoftSensor.Daemon.Replay;
 namespace SoftSensor.Daemon.Tests.Replay;
 
 /// <summary>
-/// The dissolved-CO2 correction of CER (METHODS.md 1.5; see CerCorrectionStepTests for the equation and
+/// The dissolved-CO2 correction of CER (docs/methods.md §1.5; see CerCorrectionStepTests for the equation and
 /// its published constants) over the shipped glycerol scenario, whose simulator keeps the broth's
 /// inorganic carbon as a state, so its truth.csv has the culture's CER beside the CTR the analyser sees.
 /// Measured here (24 h, seed 42, after the first hour): CER - true CER has an RMS of 2.33 mmol/(L·h)

@@ -69,7 +69,7 @@ public sealed class OfflineSampleRestartTests(MosquittoFixture broker) : IClassF
 
         // The withdrawal came first: the simulator's level did not drop (its operator took nothing), so with the
         // measured volume the balance now holds the biomass of 300 mL less broth at the same volume, X·(1 - f) with
-        // f = ΔV/(V + ΔV) (METHODS.md section 4; the growth of that one 10 s step is below the 1e-4 tolerance).
+        // f = ΔV/(V + ΔV) (docs/methods.md §4; the growth of that one 10 s step is below the 1e-4 tolerance).
         var store = rig.Daemon.Get<SqliteStore>();
         var cycle = applied.AppliedAtCycle!.Value;
         var published = Assert.Single(await store.QueryEstimatesAsync("r1", EstimateNames.BiomassGPerL, cycle, cycle, 10, default));

@@ -19,7 +19,7 @@ public sealed partial class StatusPageChromiumTests(MosquittoFixture broker) : I
 
         string dom = await HeadlessChromium.DumpDomAsync(daemon.StatusAddress + "/");
 
-        // The page formats values of 1 to 1000 with three decimals: the hand-worked OUR 38.629 mmol/(L·h) (METHODS.md section 6).
+        // The page formats values of 1 to 1000 with three decimals: the hand-worked OUR 38.629 mmol/(L·h) (docs/methods.md §6).
         var m = OurCell().Match(dom);
         Assert.True(m.Success, "no OUR cell in the page: " + dom[..Math.Min(dom.Length, 2000)]);
         Assert.Equal(38.629, double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), 0.0015);

@@ -14,7 +14,7 @@ namespace SoftSensor.Daemon.Tests.Timeseries;
 /// killed (SIGKILL) during the outage, the database and the daemon start again. Every cycle in the
 /// daemon's store is then in the database exactly once. VictoriaMetrics runs with
 /// -dedup.minScrapeInterval=1ms: a batch acknowledged just before the kill is resent with the same
-/// series and timestamps, which InfluxDB overwrites by design (INTEGRATION.md).
+/// series and timestamps, which InfluxDB overwrites by design (docs/daemon.md).
 /// </summary>
 public sealed class DaemonKillTests(MosquittoFixture broker) : IClassFixture<MosquittoFixture>, IAsyncLifetime
 {

@@ -5,7 +5,7 @@ namespace SoftSensor.Daemon.Tests.Timeseries;
 /// rows were never marked sent): the next run resends that batch. The resent points are the same
 /// series and millisecond timestamps, so a database that overwrites on (series, time) stores each
 /// cycle once: InfluxDB does by design; VictoriaMetrics does with -dedup.minScrapeInterval=1ms,
-/// as started here (INTEGRATION.md).
+/// as started here (docs/daemon.md).
 /// </summary>
 public sealed class OutboxCrashTests : IAsyncLifetime
 {

@@ -9,7 +9,7 @@ namespace SoftSensor.Daemon.Tests.Timeseries;
 /// A private VictoriaMetrics (Debian package, /usr/bin/victoria-metrics) on a free loopback port
 /// with its data in a temporary folder. It accepts the InfluxDB v2 write API (/api/v2/write) and
 /// exports what it stored (/api/v1/export). Stopped gracefully with SIGTERM: an unclean stop of
-/// the database itself can lose its last acknowledged seconds (INTEGRATION.md).
+/// the database itself can lose its last acknowledged seconds (docs/daemon.md).
 /// </summary>
 internal sealed class VictoriaMetricsServer : IAsyncDisposable
 {

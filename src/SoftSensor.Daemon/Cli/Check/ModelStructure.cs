@@ -5,7 +5,7 @@ using SoftSensor.Daemon.Configuration;
 namespace SoftSensor.Daemon.Cli.Check;
 
 /// <summary>
-/// Structure of a reactor's black-box model with the rates its tag map measures (METHODS.md 2.3-2.4:
+/// Structure of a reactor's black-box model with the rates its tag map measures (docs/methods.md §2.3-2.4:
 /// rank of the element matrix, degrees of freedom, calculability and redundancy after van der Heijden
 /// et al. 1994, Biotechnol. Bioeng. 43). Measured: oxygen from OUR and carbon dioxide from CER (the
 /// off-gas analyser tags), the substrate from the feed (a feed-rate tag).
@@ -40,7 +40,7 @@ internal static class ModelStructure
         var rows = Enumerable.Range(0, e.GetLength(0))
             .Select(i => (IReadOnlyList<double>)[.. Enumerable.Range(0, e.GetLength(1)).Select(j => e[i, j])]).ToList();
 
-        // Water drops out of the C, degree-of-reduction and N balances (METHODS.md 2.2): its rate is never needed.
+        // Water drops out of the C, degree-of-reduction and N balances (docs/methods.md §2.2): its rate is never needed.
         var open = a.NotCalculable.Where(id => model[id].Role != CompoundRole.Water).ToList();
         if (open.Count > 0)
         {
