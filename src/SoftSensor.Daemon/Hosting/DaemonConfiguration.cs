@@ -71,28 +71,7 @@ internal static class DaemonConfiguration
             configuration.AddInMemoryCollection(defaults);
         }
     }
-}
 
-/// <summary>How a daemon host is built: the config file, overrides, and hooks for the demo and tests.</summary>
-internal sealed class DaemonHostSettings
-{
-    /// <summary>The <c>--config</c> file, or null.</summary>
-    public string? ConfigFile { get; init; }
-
-    /// <summary>Replaces <see cref="DaemonConfiguration.SystemFolder"/> (tests); null for the default.</summary>
-    public string? SystemFolder { get; init; }
-
-    /// <summary>Configuration keys set above the files (e.g. the demo broker's port).</summary>
-    public Dictionary<string, string?> Overrides { get; init; } = new(StringComparer.OrdinalIgnoreCase);
-
-    /// <summary>Command-line overrides (<c>--key=value</c>), highest priority.</summary>
-    public IReadOnlyList<string> CommandLine { get; init; } = [];
-
-    /// <summary>Extra registrations after the daemon's own (a clock for the demo, extra sinks).</summary>
-    public Action<Microsoft.Extensions.DependencyInjection.IServiceCollection>? ConfigureServices { get; init; }
-
-    /// <summary>Minimum log level of the console (Information by default; the demo uses Warning).</summary>
-    public Microsoft.Extensions.Logging.LogLevel ConsoleLevel { get; init; } = Microsoft.Extensions.Logging.LogLevel.Information;
     /// <summary>
     /// The environment's settings: <c>SOFTSENSOR_section__key</c> (and the top-level scalars <c>SOFTSENSOR_site</c>,
     /// <c>SOFTSENSOR_area</c>). The program's own variables that are not settings (<c>SOFTSENSOR_TOKEN</c>,
@@ -120,4 +99,26 @@ internal sealed class DaemonHostSettings
 
         return settings;
     }
+}
+
+/// <summary>How a daemon host is built: the config file, overrides, and hooks for the demo and tests.</summary>
+internal sealed class DaemonHostSettings
+{
+    /// <summary>The <c>--config</c> file, or null.</summary>
+    public string? ConfigFile { get; init; }
+
+    /// <summary>Replaces <see cref="DaemonConfiguration.SystemFolder"/> (tests); null for the default.</summary>
+    public string? SystemFolder { get; init; }
+
+    /// <summary>Configuration keys set above the files (e.g. the demo broker's port).</summary>
+    public Dictionary<string, string?> Overrides { get; init; } = new(StringComparer.OrdinalIgnoreCase);
+
+    /// <summary>Command-line overrides (<c>--key=value</c>), highest priority.</summary>
+    public IReadOnlyList<string> CommandLine { get; init; } = [];
+
+    /// <summary>Extra registrations after the daemon's own (a clock for the demo, extra sinks).</summary>
+    public Action<Microsoft.Extensions.DependencyInjection.IServiceCollection>? ConfigureServices { get; init; }
+
+    /// <summary>Minimum log level of the console (Information by default; the demo uses Warning).</summary>
+    public Microsoft.Extensions.Logging.LogLevel ConsoleLevel { get; init; } = Microsoft.Extensions.Logging.LogLevel.Information;
 }
