@@ -38,7 +38,6 @@ public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsy
     // JSON text in System.Text.Json's shortest round-trip form; source times as 100 ns ticks (Part 6 §5.2.2.5)
     // and ISO 8601 text with 7 fraction digits. So the two cycles see bit-identical inputs; the tolerance
     // below only allows for nothing but rounding noise, were any to appear.
-    private const double RelativeTolerance = 1e-12;
 
     private const string PasswordVariable = "SOFTSENSOR_TEST_PARITY_OPCUA_PASSWORD";
 
@@ -131,7 +130,7 @@ public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsy
         var b = recorder.Frames(ParityRig.OpcUaReactor);
         for (int k = 0; k < Steps; k++)
         {
-            AssertSameFrame(a[k], b[k], k + 1);
+            ParityAssert.SameFrame(a[k], b[k], k + 1, "MQTT", "OPC UA");
         }
 
         // The comparison means something only if the estimates exist: after the warm-up OUR, CER, RQ, mu
@@ -153,26 +152,11 @@ public sealed class OpcUaMqttParityTests : IClassFixture<MosquittoFixture>, IAsy
         {
             var (x, y) = (storedA[i], storedB[i]);
             Assert.Equal((x.Name, x.Time, x.Quality, x.StatusCode), (y.Name, y.Time, y.Quality, y.StatusCode));
-            Assert.True(Close(x.Value, y.Value), $"stored {x.Name} at {x.Time:O}: {x.Value} (MQTT) vs {y.Value} (OPC UA)");
+            Assert.True(ParityAssert.Close(x.Value, y.Value), $"stored {x.Name} at {x.Time:O}: {x.Value} (MQTT) vs {y.Value} (OPC UA)");
         }
     }
 
-    private static void AssertSameFrame(EstimateFrame x, EstimateFrame y, int cycle)
-    {
-        Assert.Equal(x.Time, y.Time);
-        Assert.Equal(x.Quality, y.Quality);
-        Assert.Equal(x.Values.Select(v => v.Name), y.Values.Select(v => v.Name));
-        for (int i = 0; i < x.Values.Count; i++)
-        {
-            var (u, v) = (x.Values[i], y.Values[i]);
-            Assert.True(u.Quality == v.Quality && u.StatusCode == v.StatusCode, $"cycle {cycle} {u.Name}: quality {u.Quality}/0x{u.StatusCode:X8} (MQTT) vs {v.Quality}/0x{v.StatusCode:X8} (OPC UA)");
-            Assert.True(Close(u.Value, v.Value), $"cycle {cycle} {u.Name}: {u.Value:R} (MQTT) vs {v.Value:R} (OPC UA)");
-            Assert.True(Close(u.Sigma, v.Sigma), $"cycle {cycle} {u.Name} sigma: {u.Sigma:R} (MQTT) vs {v.Sigma:R} (OPC UA)");
-        }
-    }
 
-    private static bool Close(double a, double b) =>
-        (double.IsNaN(a) && double.IsNaN(b)) || a == b || Math.Abs(a - b) <= RelativeTolerance * Math.Max(Math.Abs(a), Math.Abs(b));
 
     private static async Task WaitUntilAsync(Func<bool> condition, Func<string> what)
     {

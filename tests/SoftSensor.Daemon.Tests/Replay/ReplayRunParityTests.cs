@@ -33,7 +33,6 @@ public sealed class ReplayRunParityTests(MosquittoFixture broker) : IClassFixtur
     // JSON numbers in System.Text.Json's shortest round-trip form and the export's cells in "R" form
     // are both exact for an IEEE 754 binary64; times are ISO 8601 with 7 fraction digits (100 ns ticks)
     // in both. Identical inputs give identical frames; the tolerance only admits rounding noise.
-    private const double RelativeTolerance = 1e-12;
 
     [Fact]
     public async Task The_same_inputs_through_MQTT_into_run_and_through_replay_give_the_same_frames()
@@ -89,7 +88,7 @@ public sealed class ReplayRunParityTests(MosquittoFixture broker) : IClassFixtur
             Assert.True(a.Count == b.Count, $"live {a.Count}, replay {b.Count} frames; replayed reactor '{options.Reactors[0].Id}', {outcome.Good} good, {outcome.Bad} bad");
             for (int k = 0; k < a.Count; k++)
             {
-                AssertSameFrame(a[k], b[k], k + 1);
+                ParityAssert.SameFrame(a[k], b[k], k + 1, "run", "replay");
             }
 
             // The comparison means something only once the estimates exist.
@@ -110,22 +109,7 @@ public sealed class ReplayRunParityTests(MosquittoFixture broker) : IClassFixtur
             .Where(kv => !kv.Key.StartsWith("reactors:1:", StringComparison.OrdinalIgnoreCase) && !kv.Key.StartsWith("opcUa:", StringComparison.OrdinalIgnoreCase))
             .ToDictionary(kv => kv.Key, kv => kv.Value, StringComparer.OrdinalIgnoreCase);
 
-    private static void AssertSameFrame(EstimateFrame x, EstimateFrame y, int cycle)
-    {
-        Assert.Equal(x.Time, y.Time);
-        Assert.Equal(x.Quality, y.Quality);
-        Assert.Equal(x.Values.Select(v => v.Name), y.Values.Select(v => v.Name));
-        for (int i = 0; i < x.Values.Count; i++)
-        {
-            var (u, v) = (x.Values[i], y.Values[i]);
-            Assert.True(u.Quality == v.Quality && u.StatusCode == v.StatusCode, $"cycle {cycle} {u.Name}: quality {u.Quality}/0x{u.StatusCode:X8} (run) vs {v.Quality}/0x{v.StatusCode:X8} (replay)");
-            Assert.True(Close(u.Value, v.Value), $"cycle {cycle} {u.Name}: {u.Value:R} (run) vs {v.Value:R} (replay)");
-            Assert.True(Close(u.Sigma, v.Sigma), $"cycle {cycle} {u.Name} sigma: {u.Sigma:R} (run) vs {v.Sigma:R} (replay)");
-        }
-    }
 
-    private static bool Close(double a, double b) =>
-        (double.IsNaN(a) && double.IsNaN(b)) || a == b || Math.Abs(a - b) <= RelativeTolerance * Math.Max(Math.Abs(a), Math.Abs(b));
 
     private static async Task WaitUntilAsync(Func<bool> condition, Func<string> what)
     {
