@@ -20,7 +20,23 @@ internal sealed partial class BalanceKernel
     private readonly double[] _eps, _t, _phi, _z, _qs, _psiS, _kp, _g;
     private readonly int[] _measuredAt, _unknownAt; // column -> position in q_m / q_u, or -1
 
+    // Model uncertainty (docs/model-uncertainty.md): per uncertain column c, with D_c = diag(σ_c²) over
+    // the rows, M_c = W_r D_c W_r^T (rho x rho), N_c = P D_c P^T (u x u), Q_c = W_r D_c P^T (rho x u),
+    // W_r the left-null-space rows that give R_r = W_r A_m and P = pinv(A_u).
+    private readonly int[] _uncertainColumns;
+    private readonly double[] _mc, _nc, _qc, _qhat2, _y, _extra, _kt;
+
     public BalanceKernel(double[,] a, int[] measuredColumns, double rankTolerance, double alpha)
+        : this(a, measuredColumns, rankTolerance, alpha, null)
+    {
+    }
+
+    /// <param name="a">The constraint matrix, rows x columns.</param>
+    /// <param name="measuredColumns">Columns measured, in the order of q_m.</param>
+    /// <param name="rankTolerance">Relative singular-value threshold.</param>
+    /// <param name="alpha">Significance level of the test.</param>
+    /// <param name="columnRowSigmas">Per column null or the σ of its entry in every row (docs/model-uncertainty.md).</param>
+    public BalanceKernel(double[,] a, int[] measuredColumns, double rankTolerance, double alpha, double[]?[]? columnRowSigmas)
     {
         int rows = a.GetLength(0);
         Columns = a.GetLength(1);
@@ -85,7 +101,79 @@ internal sealed partial class BalanceKernel
         _qs = new double[m];
         _psiS = new double[m * m];
         _kp = new double[u * m];
+
+        var uncertain = new List<int>();
+        for (int c = 0; c < Columns && columnRowSigmas is not null && c < columnRowSigmas.Length; c++)
+        {
+            if (columnRowSigmas[c] is { } sg && sg.Any(v => v != 0))
+            {
+                if (sg.Length != rows)
+                {
+                    throw new ArgumentException($"column {c}: {sg.Length} row sigmas for {rows} rows", nameof(columnRowSigmas));
+                }
+
+                uncertain.Add(c);
+            }
+        }
+
+        _uncertainColumns = [.. uncertain];
+        int nu = _uncertainColumns.Length, rho = Redundancy;
+        _mc = new double[nu * rho * rho];
+        _nc = new double[nu * u * u];
+        _qc = new double[nu * rho * u];
+        _qhat2 = new double[nu];
+        _y = new double[u * rho];
+        _extra = new double[u * u];
+        _kt = new double[u * rho];
+        if (nu > 0)
+        {
+            var w = svdU.LeftNullSpace();
+            var wr = new double[rho, rows];
+            for (int i = 0; i < rho; i++)
+            {
+                for (int l = 0; l < w.GetLength(0); l++)
+                {
+                    for (int r2 = 0; r2 < rows; r2++)
+                    {
+                        wr[i, r2] += svdR.U[l, i] * w[l, r2];
+                    }
+                }
+            }
+
+            var p = svdU.PseudoInverse();
+            for (int n2 = 0; n2 < nu; n2++)
+            {
+                var sg = columnRowSigmas![_uncertainColumns[n2]]!;
+                for (int r2 = 0; r2 < rows; r2++)
+                {
+                    double d = sg[r2] * sg[r2];
+                    for (int i = 0; i < rho; i++)
+                    {
+                        for (int j = 0; j < rho; j++)
+                        {
+                            _mc[(n2 * rho * rho) + (i * rho) + j] += wr[i, r2] * d * wr[j, r2];
+                        }
+
+                        for (int j = 0; j < u; j++)
+                        {
+                            _qc[(n2 * rho * u) + (i * u) + j] += wr[i, r2] * d * p[j, r2];
+                        }
+                    }
+
+                    for (int i = 0; i < u; i++)
+                    {
+                        for (int j = 0; j < u; j++)
+                        {
+                            _nc[(n2 * u * u) + (i * u) + j] += p[i, r2] * d * p[j, r2];
+                        }
+                    }
+                }
+            }
+        }
     }
+
+    /// <summary>True when some column carries model uncertainty.</summary>
+    public bool HasModelUncertainty => _uncertainColumns.Length > 0;
 
     public int Columns { get; }
 

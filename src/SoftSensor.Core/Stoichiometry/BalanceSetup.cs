@@ -94,6 +94,34 @@ internal sealed class BalanceSetup
         return a;
     }
 
+    /// <summary>
+    /// Per column of <see cref="ConstraintMatrix"/> the σ of its entries from the compound's
+    /// <see cref="Compound.Uncertainty"/> (null when exact); specification rows are exact (docs/model-uncertainty.md).
+    /// </summary>
+    public double[]?[] RowSigmas(IReadOnlyList<Compound> columns)
+    {
+        int rows = Model.Balances.Count + Specifications.Count;
+        var result = new double[]?[columns.Count];
+        for (int j = 0; j < columns.Count; j++)
+        {
+            var u = columns[j].Uncertainty;
+            if (u.IsNone)
+            {
+                continue;
+            }
+
+            var sg = new double[rows];
+            for (int i = 0; i < Model.Balances.Count; i++)
+            {
+                sg[i] = u.OfBalance(Model.Balances[i]);
+            }
+
+            result[j] = sg;
+        }
+
+        return result;
+    }
+
     private static string? Validate(StoichiometricModel model, IReadOnlyList<string> measured, IReadOnlyList<Specification> specifications, BalanceSolverOptions options)
     {
         string known = string.Join(", ", model.Compounds.Select(c => c.Id));

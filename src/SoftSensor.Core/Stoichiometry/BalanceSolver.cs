@@ -24,20 +24,21 @@ public sealed class BalanceSolver
         MeasuredIds = setup.MeasuredIds;
         Specifications = setup.Specifications;
         var a = setup.ConstraintMatrix(setup.Columns);
-        _base = new BalanceKernel(a, setup.MeasuredColumns, Options.RankTolerance, Options.Alpha);
+        var sigmas = setup.RowSigmas(setup.Columns);
+        _base = new BalanceKernel(a, setup.MeasuredColumns, Options.RankTolerance, Options.Alpha, sigmas);
 
         var hypotheses = new List<Hypothesis>();
         var kernels = new List<BalanceKernel>();
         for (int k = 0; k < setup.MeasuredColumns.Length; k++)
         {
             hypotheses.Add(new Hypothesis(HypothesisKind.MeasurementInError, MeasuredIds[k]));
-            kernels.Add(new BalanceKernel(a, setup.MeasuredColumns.Where((_, i) => i != k).ToArray(), Options.RankTolerance, Options.Alpha));
+            kernels.Add(new BalanceKernel(a, setup.MeasuredColumns.Where((_, i) => i != k).ToArray(), Options.RankTolerance, Options.Alpha, sigmas));
         }
 
         foreach (var candidate in setup.Candidates)
         {
             hypotheses.Add(new Hypothesis(HypothesisKind.MissingProduct, candidate.Id));
-            kernels.Add(new BalanceKernel(setup.ConstraintMatrix([.. setup.Columns, candidate]), setup.MeasuredColumns, Options.RankTolerance, Options.Alpha));
+            kernels.Add(new BalanceKernel(setup.ConstraintMatrix([.. setup.Columns, candidate]), setup.MeasuredColumns, Options.RankTolerance, Options.Alpha, setup.RowSigmas([.. setup.Columns, candidate])));
         }
 
         Hypotheses = hypotheses;

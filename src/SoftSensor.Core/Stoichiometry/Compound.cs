@@ -13,6 +13,15 @@ namespace SoftSensor.Core.Stoichiometry;
 /// <param name="AshFraction">Ash as a fraction of dry weight (biomass only; 0 otherwise).</param>
 public sealed record Compound(string Id, Formula Formula, CompoundRole Role, double MolarMassGPerMol, double AshFraction)
 {
+    /// <summary>Standard uncertainties of the composition (docs/model-uncertainty.md); none by default.</summary>
+    public FormulaUncertainty Uncertainty { get; init; }
+
+    /// <summary>
+    /// σ of <see cref="WeighedMassGPerRateUnit"/> from the ash's σ, first order:
+    /// d(M/(1-a))/da = M/(1-a)² (docs/model-uncertainty.md).
+    /// </summary>
+    public double WeighedMassSigmaGPerRateUnit => MassGPerRateUnit / ((1.0 - AshFraction) * (1.0 - AshFraction)) * Uncertainty.AshFraction;
+
     /// <summary>True when the compound contains carbon and its rate is per C-mol.</summary>
     public bool IsOrganic => Formula.IsOrganic;
 

@@ -18,7 +18,9 @@ public static class ModelReader
         AllowTrailingCommas = true,
     };
 
-    private static readonly string[] CompoundKeys = ["formula", "role", "molarMass", "ashFraction"];
+    private static readonly string[] CompoundKeys = ["formula", "role", "molarMass", "ashFraction", "uncertainty"];
+
+    private static readonly string[] UncertaintyKeys = ["degreeOfReduction", "nitrogenPerCMol", "ashFraction"];
 
     /// <summary>Reads a model; throws <see cref="ModelFormatException"/> naming the field at fault.</summary>
     public static StoichiometricModel Parse(string json)
@@ -168,7 +170,58 @@ public static class ModelReader
             }
         }
 
-        return new Compound(id, formula!, role, molarMass, ash);
+        var uncertainty = props.TryGetValue("uncertainty", out var un) ? ReadUncertainty(un, path + ".uncertainty", role) : FormulaUncertainty.None;
+        return new Compound(id, formula!, role, molarMass, ash) { Uncertainty = uncertainty };
+    }
+
+    /// <summary>
+    /// <c>"uncertainty": "publishedSpread"</c> (biomass: <see cref="FormulaUncertainty.PublishedBiomassSpread"/>) or
+    /// <c>{ "degreeOfReduction": σ, "nitrogenPerCMol": σ, "ashFraction": σ }</c> (each optional, ≥ 0).
+    /// </summary>
+    private static FormulaUncertainty ReadUncertainty(JsonElement e, string path, CompoundRole role)
+    {
+        if (e.ValueKind == JsonValueKind.String)
+        {
+            if (e.GetString() == "publishedSpread" && role == CompoundRole.Biomass)
+            {
+                return FormulaUncertainty.PublishedBiomassSpread;
+            }
+
+            throw new ModelFormatException(path, $"'{e.GetString()}' is not allowed: \"publishedSpread\" (biomass only) or an object with {string.Join(", ", UncertaintyKeys)}");
+        }
+
+        if (e.ValueKind != JsonValueKind.Object)
+        {
+            throw new ModelFormatException(path, $"expected \"publishedSpread\" or an object with {string.Join(", ", UncertaintyKeys)}, found {e.ValueKind}");
+        }
+
+        var props = UniqueProperties(e, path);
+        foreach (string key in props.Keys)
+        {
+            if (Array.IndexOf(UncertaintyKeys, key) < 0)
+            {
+                throw new ModelFormatException($"{path}.{key}", $"unknown key (allowed: {string.Join(", ", UncertaintyKeys)})");
+            }
+        }
+
+        double Get(string key)
+        {
+            if (!props.TryGetValue(key, out var v))
+            {
+                return 0;
+            }
+
+            double x = ReadNumber(v, $"{path}.{key}");
+            return x >= 0 ? x : throw new ModelFormatException($"{path}.{key}", $"{x.ToString(CultureInfo.InvariantCulture)} is negative: give a standard uncertainty ≥ 0");
+        }
+
+        double ash = Get("ashFraction");
+        if (ash > 0 && role != CompoundRole.Biomass)
+        {
+            throw new ModelFormatException(path + ".ashFraction", "only a compound with role \"biomass\" has an ash fraction");
+        }
+
+        return new FormulaUncertainty(Get("degreeOfReduction"), Get("nitrogenPerCMol"), ash);
     }
 
     private static string FixedId(string id)
