@@ -1,5 +1,6 @@
 using SoftSensor.Core.Stoichiometry;
 using Xunit;
+using Xunit.Abstractions;
 
 namespace SoftSensor.Core.Tests.Stoichiometry;
 
@@ -9,7 +10,7 @@ namespace SoftSensor.Core.Tests.Stoichiometry;
 /// (γX 3.9–4.3, N 0.15–0.25 per C: Roels 1983; Villadsen, Nielsen &amp; Lidén 2011 ch. 3, from memory);
 /// the estimator keeps the standard CH1.8O0.5N0.2 (γ 4.2).
 /// </summary>
-public sealed class ModelUncertaintyTests
+public sealed class ModelUncertaintyTests(ITestOutputHelper output)
 {
     private const string Json = """
         { "name": "glycerol", "compounds": {
@@ -63,5 +64,71 @@ public sealed class ModelUncertaintyTests
         Assert.True(o1.H < o0.H);
         Assert.True(s1[ix] > s0[ix]);
         Assert.True(Math.Abs(r1[ix] - qx) <= 2 * s1[ix], $"error {r1[ix] - qx} σ {s1[ix]}");
+    }
+
+    /// <summary>
+    /// Monte Carlo check of the first-order equations: cultures drawn with γX ~ N(4.2, σγ),
+    /// N ~ N(0.2, σN) (the published spread, read as normal here), 1 % measurement noise (invented for
+    /// the check). The χ²(1) test at α = 0.05 flags about 5 % and the biomass error / σ has unit spread.
+    /// </summary>
+    [Fact]
+    public void FlagRateAndSigmaMatchMonteCarlo()
+    {
+        var solver = BalanceSolver.Create(ModelReader.Parse(Json), ["glycerol", "o2", "co2"]);
+        var u = FormulaUncertainty.PublishedBiomassSpread;
+        var rng = new Random(15);
+        double Normal() => Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble());
+        int n = solver.Compounds.Count, ix = solver.CompoundIds.ToList().IndexOf("biomass");
+        var rates = new double[n];
+        var sigmas = new double[n];
+        int flagged = 0, runs = 4000;
+        double sumZ2 = 0;
+        for (int k = 0; k < runs; k++)
+        {
+            double gx = 4.2 + (u.DegreeOfReduction * Normal());
+            double qs = -30, qx = 16.5, qc = -qs - qx, qo = ((14.0 / 3 * qs) + (gx * qx)) / 4;
+            double[] truth = [qs, qo, qc];
+            double[] q = new double[3];
+            double[] psi = new double[9];
+            for (int i = 0; i < 3; i++)
+            {
+                double sd = 0.01 * Math.Abs(truth[i]);
+                q[i] = truth[i] + (sd * Normal());
+                psi[(i * 3) + i] = sd * sd;
+            }
+
+            var o = solver.Solve(q, psi, rates, sigmas);
+            flagged += o.Consistent ? 0 : 1;
+            double z = (rates[ix] - qx) / sigmas[ix];
+            sumZ2 += z * z;
+        }
+
+        double rate = (double)flagged / runs, spread = Math.Sqrt(sumZ2 / runs);
+        output.WriteLine($"flagged {rate:P2}, biomass error/σ rms {spread:F3} over {runs} cultures");
+        Assert.InRange(rate, 0.03, 0.08);
+        Assert.InRange(spread, 0.85, 1.15);
+    }
+
+    [Fact]
+    public void UncertainModelSolvesWithoutAllocating()
+    {
+        var solver = BalanceSolver.Create(ModelReader.Parse(Json), ["glycerol", "o2", "co2"]);
+        double[] q = [-30, -20, 13];
+        double[] psi = [0.09, 0, 0, 0, 0.04, 0, 0, 0, 0.02];
+        int n = solver.Compounds.Count;
+        var rates = new double[n];
+        var sigmas = new double[n];
+        var cov = new double[n * n];
+        var outcomes = new HypothesisOutcome[solver.Hypotheses.Count];
+        solver.Solve(q, psi, rates, sigmas, cov);
+        solver.Diagnose(q, psi, outcomes);
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        for (int i = 0; i < 100; i++)
+        {
+            solver.Solve(q, psi, rates, sigmas, cov);
+            solver.Diagnose(q, psi, outcomes);
+        }
+
+        Assert.Equal(0, GC.GetAllocatedBytesForCurrentThread() - before);
     }
 }
