@@ -11,9 +11,16 @@ public class AllocationTests
         var solver = BalanceSolver.Create(TestModels.Glycerol, ["glycerol", "o2", "co2", "biomass", "nh3"]);
         double[] q = [-1.0, -0.8, 0.5, 0.5, -0.1];
         var psi = TestModels.Relative(0.03, q);
-        var rates = new double[6];
-        var sigmas = new double[6];
-        var cov = new double[36];
+        AssertSolveAndDiagnoseAllocateNothing(solver, q, psi);
+    }
+
+    /// <summary>Warms the solver up, then asserts 100 Solve + Diagnose calls allocate no managed memory.</summary>
+    internal static void AssertSolveAndDiagnoseAllocateNothing(BalanceSolver solver, double[] q, double[] psi)
+    {
+        int n = solver.Compounds.Count;
+        var rates = new double[n];
+        var sigmas = new double[n];
+        var cov = new double[n * n];
         var outcomes = new HypothesisOutcome[solver.Hypotheses.Count];
         solver.Solve(q, psi, rates, sigmas, cov);
         solver.Diagnose(q, psi, outcomes);

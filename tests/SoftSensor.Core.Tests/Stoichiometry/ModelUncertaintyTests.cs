@@ -115,20 +115,6 @@ public sealed class ModelUncertaintyTests(ITestOutputHelper output)
         var solver = BalanceSolver.Create(ModelReader.Parse(Json), ["glycerol", "o2", "co2"]);
         double[] q = [-30, -20, 13];
         double[] psi = [0.09, 0, 0, 0, 0.04, 0, 0, 0, 0.02];
-        int n = solver.Compounds.Count;
-        var rates = new double[n];
-        var sigmas = new double[n];
-        var cov = new double[n * n];
-        var outcomes = new HypothesisOutcome[solver.Hypotheses.Count];
-        solver.Solve(q, psi, rates, sigmas, cov);
-        solver.Diagnose(q, psi, outcomes);
-        long before = GC.GetAllocatedBytesForCurrentThread();
-        for (int i = 0; i < 100; i++)
-        {
-            solver.Solve(q, psi, rates, sigmas, cov);
-            solver.Diagnose(q, psi, outcomes);
-        }
-
-        Assert.Equal(0, GC.GetAllocatedBytesForCurrentThread() - before);
+        AllocationTests.AssertSolveAndDiagnoseAllocateNothing(solver, q, psi);
     }
 }
